@@ -1,0 +1,1 @@
+//! assess (being written).

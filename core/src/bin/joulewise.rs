@@ -1,0 +1,2 @@
+//! The command-line front end (being written).
+fn main() {}

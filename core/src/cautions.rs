@@ -1,0 +1,1 @@
+//! cautions (being written).

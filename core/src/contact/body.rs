@@ -1,0 +1,1 @@
+//! body contact (being written).

@@ -1,0 +1,1 @@
+//! buffer contact (being written).

@@ -1,0 +1,1 @@
+//! gap contact (being written).

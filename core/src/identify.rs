@@ -1,0 +1,1 @@
+//! identify (being written).

@@ -1,0 +1,1 @@
+//! limits (being written).

@@ -1,0 +1,1 @@
+//! mechanism (being written).

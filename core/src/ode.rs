@@ -1,0 +1,1 @@
+//! ode (being written).

@@ -1,0 +1,1 @@
+//! sizing (being written).

@@ -1,0 +1,1 @@
+//! tolerance (being written).

@@ -1,0 +1,118 @@
+//! Architecture invariants, checked mechanically.
+//!
+//! **joulewise-core knows nothing of the DOM, Leptos, clocks, entropy or
+//! I/O**: its dependency graph (without the `cli` feature) must not contain a
+//! web, browser-glue or OS-entropy crate. The check reads `cargo metadata`.
+
+use std::process::Command;
+
+/// Crates that would mean the core has learned about the browser, the clock or
+/// the OS entropy source.
+const FORBIDDEN: &[&str] = &[
+    "leptos",
+    "wasm-bindgen",
+    "web-sys",
+    "js-sys",
+    "gloo",
+    "gloo-storage",
+    "gloo-timers",
+    "getrandom",
+    "instant",
+    "web-time",
+    "chrono",
+    "time",
+    "tokio",
+    "reqwest",
+];
+
+#[test]
+fn core_library_has_no_web_clock_or_io_dependency() {
+    let root = joulewise_tests::workspace_root();
+    let out = Command::new(env!("CARGO"))
+        .args(["metadata", "--format-version", "1", "--offline", "--manifest-path"])
+        .arg(root.join("Cargo.toml"))
+        .output()
+        .expect("cargo metadata runs");
+    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    let meta: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let packages = meta["packages"].as_array().unwrap();
+    let core = packages
+        .iter()
+        .find(|p| p["name"] == "joulewise-core")
+        .expect("joulewise-core is a workspace member");
+    // Walk the normal (non-dev), non-optional dependencies transitively.
+    let mut seen = std::collections::BTreeSet::new();
+    let mut stack: Vec<&serde_json::Value> = vec![core];
+    while let Some(pkg) = stack.pop() {
+        for dep in pkg["dependencies"].as_array().unwrap() {
+            let is_normal = dep["kind"].is_null();
+            let optional = dep["optional"].as_bool().unwrap_or(false);
+            if !is_normal || optional {
+                continue;
+            }
+            let name = dep["name"].as_str().unwrap().to_string();
+            if seen.insert(name.clone()) {
+                if let Some(p) = packages.iter().find(|p| p["name"] == name.as_str()) {
+                    stack.push(p);
+                }
+            }
+        }
+    }
+    let bad: Vec<_> = seen
+        .iter()
+        .filter(|n| FORBIDDEN.contains(&n.as_str()))
+        .collect();
+    assert!(
+        bad.is_empty(),
+        "joulewise-core must stay pure, but depends on {bad:?}"
+    );
+}
+
+#[test]
+fn core_sources_read_no_clock_and_do_no_io() {
+    let root = joulewise_tests::workspace_root().join("core/src");
+    let mut offenders = Vec::new();
+    for path in rust_files(&root) {
+        if path.components().any(|c| c.as_os_str() == "bin") {
+            continue; // the CLI binary may do I/O
+        }
+        let text = std::fs::read_to_string(&path).unwrap();
+        for needle in ["Instant::now", "SystemTime", "std::fs", "std::net", "std::env::var", "thread_rng"] {
+            if text.contains(needle) {
+                offenders.push(format!("{}: {needle}", path.display()));
+            }
+        }
+    }
+    assert!(offenders.is_empty(), "{offenders:#?}");
+}
+
+#[test]
+fn every_rust_file_starts_with_a_module_doc() {
+    let root = joulewise_tests::workspace_root();
+    let mut missing = Vec::new();
+    for dir in ["core/src", "web/src", "xtask/src"] {
+        for path in rust_files(&root.join(dir)) {
+            let text = std::fs::read_to_string(&path).unwrap();
+            if !text.trim_start().starts_with("//!") {
+                missing.push(path.display().to_string());
+            }
+        }
+    }
+    assert!(missing.is_empty(), "files without a //! doc: {missing:#?}");
+}
+
+fn rust_files(dir: &std::path::Path) -> Vec<std::path::PathBuf> {
+    let mut out = Vec::new();
+    let Ok(entries) = std::fs::read_dir(dir) else {
+        return out;
+    };
+    for e in entries.flatten() {
+        let p = e.path();
+        if p.is_dir() {
+            out.extend(rust_files(&p));
+        } else if p.extension().is_some_and(|x| x == "rs") {
+            out.push(p);
+        }
+    }
+    out
+}

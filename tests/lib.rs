@@ -1,0 +1,9 @@
+//! Shared helpers for the cross-crate test suites (tolerances, paths).
+
+use std::path::PathBuf;
+
+/// The workspace root (parent of this crate's folder).
+pub fn workspace_root() -> PathBuf {
+    let here = PathBuf::from(env!("CARGO_MANIFEST_DIR"));
+    here.parent().map(PathBuf::from).unwrap_or(here)
+}

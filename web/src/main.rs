@@ -1,0 +1,2 @@
+//! Mounts the app (being written).
+fn main() {}

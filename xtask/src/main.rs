@@ -1,0 +1,2 @@
+//! `cargo xtask` (being written).
+fn main() {}
