@@ -189,3 +189,82 @@ mod tests {
         assert!(Verdict::Fail > Verdict::Unknown && Verdict::Unknown > Verdict::Pass);
     }
 }
+
+/// Stable identifiers of the figures the models produce. Limit checks, the
+/// tolerance study, the web sheet and the tests refer to figures by these
+/// names, so they are shared here rather than spelled in each module.
+pub mod ids {
+    /// Spring rate (N/m or N·m/rad) at the latched state.
+    pub const SPRING_RATE: &str = "spring.rate";
+    /// Spring force (N or N·m) in the latched (loaded) state.
+    pub const SPRING_FORCE_LATCHED: &str = "spring.force_latched";
+    /// Spring force (N or N·m) in the released state (residual preload).
+    pub const SPRING_FORCE_RELEASED: &str = "spring.force_released";
+    /// Energy stored in the spring in the latched state, from free (J).
+    pub const ENERGY_STORED_LATCHED: &str = "energy.stored_latched";
+    /// Energy still stored when the part rests on its stop: what a lockout
+    /// procedure must still release or block (J).
+    pub const ENERGY_RESIDUAL: &str = "energy.residual";
+    /// Energy the spring gives up between the latched and released states (J).
+    pub const ENERGY_RELEASED: &str = "energy.released";
+    /// Corrected shear stress of a helical spring at the latched state (Pa).
+    pub const SPRING_SHEAR_STRESS: &str = "spring.shear_stress";
+    /// Ratio of that stress to the material's permissible stress.
+    pub const SPRING_STRESS_RATIO: &str = "spring.stress_ratio";
+
+    /// Mass the moving part presents at the hazard point (kg): m plus the
+    /// spring's share, or I/r² for a rotating part.
+    pub const RELEASE_EFFECTIVE_MASS: &str = "release.effective_mass";
+    /// Speed of the hazard point when contact begins (m/s).
+    pub const RELEASE_CONTACT_SPEED: &str = "release.contact_speed";
+    /// Kinetic energy of the moving part when contact begins (J).
+    pub const RELEASE_KINETIC_ENERGY: &str = "release.kinetic_energy";
+    /// Time from release to contact (s).
+    pub const RELEASE_TIME_TO_CONTACT: &str = "release.time_to_contact";
+    /// Where the part stops if it never reaches contact (m or rad from latch).
+    pub const RELEASE_STALL_POSITION: &str = "release.stall_position";
+    /// Static force the part exerts at the closing point when it comes to rest
+    /// there (spring + drive + gravity − friction), N.
+    pub const CLOSING_FORCE_STATIC: &str = "release.closing_force_static";
+
+    /// Peak force on the buffer (N).
+    pub const IMPACT_PEAK_FORCE: &str = "impact.peak_force";
+    /// Buffer stroke used (m).
+    pub const IMPACT_STROKE_USED: &str = "impact.stroke_used";
+    /// Peak deceleration of the moving part (m/s²).
+    pub const IMPACT_PEAK_DECELERATION: &str = "impact.peak_deceleration";
+    /// Mean deceleration over the stop, contact speed / stopping time (m/s²).
+    pub const IMPACT_MEAN_DECELERATION: &str = "impact.mean_deceleration";
+    /// Time from contact to standstill (s).
+    pub const IMPACT_STOP_TIME: &str = "impact.stop_time";
+    /// Speed of the part as it leaves the buffer (m/s).
+    pub const IMPACT_REBOUND_SPEED: &str = "impact.rebound_speed";
+    /// Energy the buffer absorbs per cycle, kinetic plus drive work (J).
+    pub const IMPACT_ENERGY_PER_CYCLE: &str = "impact.energy_per_cycle";
+    /// Energy absorbed per hour at the cycle rate, as a mean heat load (W).
+    pub const IMPACT_HEAT_LOAD: &str = "impact.heat_load";
+    /// Speed left when the stroke is exhausted (bottoming), m/s; 0 if none.
+    pub const IMPACT_RESIDUAL_SPEED: &str = "impact.residual_speed";
+    /// Energy left for the hard stop when the stroke is exhausted (J).
+    pub const IMPACT_RESIDUAL_ENERGY: &str = "impact.residual_energy";
+    /// Effective mass 2·E_total/v² the trade uses to select absorbers (kg).
+    pub const IMPACT_EFFECTIVE_MASS: &str = "impact.effective_mass";
+
+    /// Reduced mass of the two-body contact (kg).
+    pub const BODY_REDUCED_MASS: &str = "body.reduced_mass";
+    /// Peak transient contact force on the body region (N).
+    pub const BODY_TRANSIENT_FORCE: &str = "body.transient_force";
+    /// Energy transferred to the body region (J).
+    pub const BODY_TRANSFER_ENERGY: &str = "body.transfer_energy";
+    /// Peak transient contact pressure (Pa).
+    pub const BODY_TRANSIENT_PRESSURE: &str = "body.transient_pressure";
+    /// Highest relative speed the region's limits permit (m/s).
+    pub const BODY_PERMISSIBLE_SPEED: &str = "body.permissible_speed";
+    /// Quasi-static clamping force when the part comes to rest on the body (N).
+    pub const BODY_CLAMPING_FORCE: &str = "body.clamping_force";
+    /// Quasi-static clamping pressure (Pa).
+    pub const BODY_CLAMPING_PRESSURE: &str = "body.clamping_pressure";
+
+    /// Smallest gap left at the closing point (m).
+    pub const GAP_CLOSING_GAP: &str = "gap.closing_gap";
+}
