@@ -29,11 +29,21 @@ const FORBIDDEN: &[&str] = &[
 fn core_library_has_no_web_clock_or_io_dependency() {
     let root = joulewise_tests::workspace_root();
     let out = Command::new(env!("CARGO"))
-        .args(["metadata", "--format-version", "1", "--offline", "--manifest-path"])
+        .args([
+            "metadata",
+            "--format-version",
+            "1",
+            "--offline",
+            "--manifest-path",
+        ])
         .arg(root.join("Cargo.toml"))
         .output()
         .expect("cargo metadata runs");
-    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
     let meta: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
     let packages = meta["packages"].as_array().unwrap();
     let core = packages
@@ -77,7 +87,14 @@ fn core_sources_read_no_clock_and_do_no_io() {
             continue; // the CLI binary may do I/O
         }
         let text = std::fs::read_to_string(&path).unwrap();
-        for needle in ["Instant::now", "SystemTime", "std::fs", "std::net", "std::env::var", "thread_rng"] {
+        for needle in [
+            "Instant::now",
+            "SystemTime",
+            "std::fs",
+            "std::net",
+            "std::env::var",
+            "thread_rng",
+        ] {
             if text.contains(needle) {
                 offenders.push(format!("{}: {needle}", path.display()));
             }

@@ -1,2 +1,5 @@
-//! Mounts the app (being written).
-fn main() {}
+//! Entry point: mounts the sheet.
+fn main() {
+    console_error_panic_hook::set_once();
+    leptos::mount::mount_to_body(joulewise_web::App);
+}

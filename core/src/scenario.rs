@@ -1,1 +1,0 @@
-//! scenario (being written).
