@@ -796,7 +796,70 @@ mod tests {
             .any(|s| s.id == LimitSetId::Guards && s.has_values_from_memory()));
     }
 
+    fn no_nan(checks: &[Check]) -> bool {
+        checks.iter().all(|c| {
+            [c.value, c.limit, c.margin_ratio, c.margin_difference]
+                .iter()
+                .all(|o| o.is_none_or(f64::is_finite))
+        })
+    }
+
     proptest! {
+        #[test]
+        fn limit_sets_never_produce_nan(
+            v in 1e-3..20.0f64,
+            x in prop::option::of(0.0..1e7f64),
+            y in prop::option::of(0.0..1e3f64),
+            m in 1.0..1e6f64,
+        ) {
+            for t in [lift::En81BufferType::LinearAccumulation, lift::En81BufferType::NonLinearAccumulation, lift::En81BufferType::Dissipation] {
+                let case = lift::En81BufferCase {
+                    buffer_type: t,
+                    rated_speed: v,
+                    stroke: y,
+                    monitored_slowdown_impact_speed: Some(v / 2.0),
+                    stop: lift::BufferStop { mean_deceleration: y, peak_deceleration: x, time_above_2_5_g: None, return_speed: y },
+                    static_force_at_stroke: x,
+                    moving_mass: Some(m),
+                };
+                prop_assert!(no_nan(&lift::en81_checks(&case).unwrap()));
+            }
+            for (inst, bt) in [
+                (lift::UsInstallation::Elevator, lift::UsBufferType::Oil),
+                (lift::UsInstallation::Elevator, lift::UsBufferType::Spring),
+                (lift::UsInstallation::ConstructionHoist, lift::UsBufferType::Spring),
+                (lift::UsInstallation::ConstructionHoist, lift::UsBufferType::Oil),
+            ] {
+                let case = lift::UsBufferCase {
+                    installation: inst,
+                    buffer_type: bt,
+                    rated_speed: v,
+                    stroke: y,
+                    terminal_speed_limiter: x.is_some(),
+                    stop: lift::BufferStop { mean_deceleration: y, peak_deceleration: y, time_above_2_5_g: None, return_speed: None },
+                    force_to_solid: x,
+                    car_and_rated_load_mass: Some(m),
+                };
+                prop_assert!(no_nan(&lift::us_checks(&case).unwrap()));
+            }
+            for travel in [crane::CraneTravel::Bridge, crane::CraneTravel::Trolley] {
+                let case = crane::CraneBumperCase { travel, rated_speed: v, mass_excluding_load: m, bumper_energy_capacity: x, mean_deceleration: y };
+                prop_assert!(no_nan(&crane::crane_bumper_checks(&case).unwrap()));
+            }
+            let gate = gates::GateForceCase { gap_width: v / 10.0, dynamic_force: x, time_above_residual: None, residual_force: x, end_force: y };
+            prop_assert!(no_nan(&gates::gate_checks(&gate).unwrap()));
+            for r in body::BodyRegion::ALL {
+                let case = body::BodyContactCase {
+                    region: r, specific_area: None, transient: true, quasi_static: true,
+                    transient_force: x, transient_pressure: x, transfer_energy: y, clamping_force: x, clamping_pressure: x,
+                };
+                prop_assert!(no_nan(&body::body_checks(&case).unwrap()));
+            }
+            prop_assert!(no_nan(&gaps::gap_checks(&gaps::BodyPart::ALL, y).unwrap()));
+            let guard = guards::GuardCase { kind: guards::GuardKind::SelfClosing, protective_device: x.is_some(), closing_force: x, kinetic_energy: y, edge_actuation_force: y };
+            prop_assert!(no_nan(&guards::guard_checks(&guard).unwrap()));
+        }
+
         #[test]
         fn checks_never_carry_nan(
             x in prop_oneof![any::<f64>(), -1e6..1e6f64],
