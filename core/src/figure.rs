@@ -26,6 +26,8 @@ pub enum SourceStatus {
     /// Recalled but not checked against the document: confirm against the
     /// current edition before relying on it.
     FromMemory,
+    /// Entered by the user (a user-defined limit); Joulewise has not checked it.
+    UserSupplied,
 }
 
 impl SourceStatus {
@@ -37,6 +39,7 @@ impl SourceStatus {
             Self::Derived => "derived from confirmed formulas",
             Self::CommonPractice => "common practice",
             Self::FromMemory => "from memory: confirm against the current edition",
+            Self::UserSupplied => "supplied by the user: not checked by Joulewise",
         }
     }
 }

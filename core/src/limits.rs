@@ -1,1 +1,0 @@
-//! limits (being written).
