@@ -1,1 +1,0 @@
-//! tolerance (being written).
