@@ -5,6 +5,8 @@
 pub mod field;
 
 use field::QuantityField;
+use joulewise_core::spring::linear::{LinearSpec, LinearSpring};
+use joulewise_core::spring::{Spring, Travel};
 use joulewise_core::units::{self, Dim, UnitSystem};
 use leptos::prelude::*;
 
@@ -23,9 +25,16 @@ pub fn stored_energy_text(rate: &str, from: &str, to: &str) -> Result<String, Ve
     let (Some(k), Some(x1), Some(x2)) = (k, x1, x2) else {
         return Err(problems);
     };
-    let spring = joulewise_core::spring::linear::LinearSpring::new(k, None)
-        .map_err(|e| vec![format!("Spring rate: {}", e.message())])?;
-    let e = spring.energy_between(x1, x2);
+    let spec = LinearSpec {
+        rate: k,
+        free_length: None,
+        max_deflection: Some(x1.abs().max(x2.abs()).max(f64::MIN_POSITIVE)),
+        solid_length: None,
+    };
+    let spring =
+        LinearSpring::new(spec).map_err(|e| vec![format!("Spring rate: {}", e.message())])?;
+    // Energy given back between the latched and released deflections.
+    let e = spring.work(x1, x2, Travel::Unloading);
     Ok(units::format_quantity(e, Dim::Energy, UnitSystem::Si).to_string())
 }
 
