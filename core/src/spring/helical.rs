@@ -686,6 +686,9 @@ mod tests {
         let (ssy, _) = s.permissible_stress().unwrap();
         assert!((ssy / 871.2e6 - 1.0).abs() < REL_PRINTED_4SF);
         assert!((s.force_at_stress(ssy) / 167.9 - 1.0).abs() < REL_PRINTED_4SF);
+        // L₀ = L_s + F_s/k = 35 + 167.9/1.314 = 162.8 mm (same problem).
+        let l0 = s.solid_length().0 + s.force_at_stress(ssy) / s.spring_rate();
+        assert!((l0 / 162.8e-3 - 1.0).abs() < REL_PRINTED_4SF);
     }
 
     #[test]
@@ -735,10 +738,13 @@ mod tests {
             total_coils: Some(12.0),
             ends: EndType::OpenGround,
             free_length: 5.17 * IN,
-            material: custom(11.75e6 * psi, None, None),
+            // E set so that G/E = 79.3/207, the steel moduli behind Shigley's
+            // 2.63 (from memory); only the ratio enters the buckling limit.
+            material: custom(11.75e6 * psi, Some(11.75e6 * psi * 207.0 / 79.3), None),
             solid_length: None,
-            tensile_strength: None,
-            permissible_stress_fraction: None,
+            // S_ut = 278.7 kpsi and S_sy = 0.45·S_ut (same problem, Table 10-6).
+            tensile_strength: Some(278.7e3 * psi),
+            permissible_stress_fraction: Some(0.45),
             seating: Seating::BothFixed,
         })
         .unwrap();
@@ -746,6 +752,16 @@ mod tests {
         assert!((s.spring_rate() / 2023.1 - 1.0).abs() < REL_US_PRINTED);
         assert!((s.index() / 10.67 - 1.0).abs() < REL_PRINTED_4SF);
         assert!((s.stress_factor() / 1.126 - 1.0).abs() < REL_PRINTED_4SF);
+        // F_s = 45.2 lbf; L₀ = L_s + F_s/k = 1.26 + 45.2/11.55 = 5.17 in;
+        // (L₀)_cr = 2.63·D/α = 5.89 in for α = 0.5 (Shigley 8th ed. 10-3, R).
+        let (ssy, _) = s.permissible_stress().unwrap();
+        let fs = s.force_at_stress(ssy);
+        assert!((fs / LBF / 45.2 - 1.0).abs() < REL_PRINTED_3SF);
+        assert!((s.solid_length().0 / IN - 1.26).abs() < REL_EXACT);
+        let l0 = s.solid_length().0 + fs / s.spring_rate();
+        assert!((l0 / IN / 5.17 - 1.0).abs() < REL_PRINTED_3SF);
+        let b = s.buckling().unwrap();
+        assert!((b.critical_free_length / IN / 5.89 - 1.0).abs() < REL_PRINTED_3SF);
     }
 
     #[test]

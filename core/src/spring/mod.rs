@@ -92,6 +92,7 @@ pub struct StressAt {
 
 /// Whether a spring's coordinate is a length or an angle.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[cfg_attr(feature = "schema", derive(schemars::JsonSchema))]
 #[serde(rename_all = "snake_case")]
 pub enum Axis {
     /// Deflection in m, force in N, rate in N/m.
@@ -105,6 +106,7 @@ pub enum Axis {
 /// curve) give a higher force while being loaded than while unloading; the
 /// energy a released spring gives back is the integral of the unloading force.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[cfg_attr(feature = "schema", derive(schemars::JsonSchema))]
 #[serde(rename_all = "snake_case")]
 pub enum Travel {
     /// Deflection increasing (spring being wound, compressed or stretched).
