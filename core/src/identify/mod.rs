@@ -120,15 +120,19 @@ pub(crate) struct In<'a> {
 }
 
 /// First-order (GUM 5.1.2) propagation through `f` with independent inputs;
-/// sensitivities by central differences (step 10⁻⁶ of the input's scale).
+/// sensitivities by central differences (step 10⁻⁶ of the input's scale,
+/// 10⁻⁹ absolute for an input that is zero with zero uncertainty).
 pub(crate) fn propagate(f: impl Fn(&[f64]) -> f64, inputs: &[In<'_>]) -> Estimate {
     let x: Vec<f64> = inputs.iter().map(|i| i.value).collect();
     let value = f(&x);
     let mut budget = Vec::with_capacity(inputs.len());
     let mut sum_sq = 0.0;
     for (k, inp) in inputs.iter().enumerate() {
-        let scale = inp.value.abs().max(inp.u).max(f64::MIN_POSITIVE);
-        let h = 1e-6 * scale;
+        // Step 10⁻⁶ of the input's scale; an input that is exactly zero with
+        // no uncertainty (an omitted spring mass, a zero offset) gets an
+        // absolute step so its sensitivity is still reported correctly.
+        let scale = inp.value.abs().max(inp.u);
+        let h = if scale > 0.0 { 1e-6 * scale } else { 1e-9 };
         let mut xp = x.clone();
         let mut xm = x.clone();
         if let (Some(p), Some(m)) = (xp.get_mut(k), xm.get_mut(k)) {

@@ -228,6 +228,7 @@ impl StatesReport {
             Axis::Rotary => (Dim::Torque, Dim::TorsionalRate),
         };
         let source = self.source();
+        let unit = force_dim.si_symbol();
         let need = |role: &str| vec![format!("mark one state as {role}")];
         let latched = self.latched.and_then(|i| self.states.get(i));
         let released = self.released.and_then(|i| self.states.get(i));
@@ -291,7 +292,7 @@ impl StatesReport {
             .source(&source)
             .assume("loading branch: the largest force the latch must hold")
             .assume(&format!(
-                "unloading branch (force driving the release): {:.4}",
+                "unloading branch (force driving the release): {:.4} {unit}",
                 s.force_unloading
             )),
             None => Figure::missing(
@@ -311,7 +312,10 @@ impl StatesReport {
             .method(law)
             .source(&source)
             .assume("unloading branch: the force with which the part arrives and rests on the stop")
-            .assume(&format!("loading branch value: {:.4}", s.force_loading)),
+            .assume(&format!(
+                "loading branch value: {:.4} {unit}",
+                s.force_loading
+            )),
             None => Figure::missing(
                 ids::SPRING_FORCE_RELEASED,
                 "Spring force on the stop",
