@@ -3,8 +3,8 @@
 //!
 //! Methods: [`static_sag`] (known mass, measured sag: k = m·g/δ),
 //! [`dynamic`] (known mass, N oscillations timed: k = 4π²·(m + m_s/3)/T²),
-//! [`two_point`] (forces at two lengths: rate, free length, preload), and
-//! [`compare`] (do two results agree within their combined uncertainty, and
+//! [`two_point`](mod@two_point) (forces at two lengths: rate, free length, preload), and
+//! [`compare`](mod@compare) (do two results agree within their combined uncertainty, and
 //! if not, what is the likely cause). [`static_sag::frequency_from_sag`]
 //! gives f = (1/2π)·√(g/δ) as a cross-check on a timed oscillation.
 //!
