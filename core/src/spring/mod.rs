@@ -6,12 +6,93 @@
 //! compression spring, extension for an extension spring, wind-up angle for a
 //! torsion spring), in m or rad; the generalised force is in N or N·m and is
 //! positive when the spring pushes back towards `q = 0`.
+//!
+//! Models (one file each): [`linear`], [`helical`] (EN 13906-1, with the
+//! [`material`] table), [`extension`] (initial tension), [`torsion`]
+//! (EN 13906-2), [`gas`] (polytropic gas spring with a friction band),
+//! [`disc`] (EN 16984 Almen–László stacks), [`table`] (measured curve, PCHIP),
+//! [`combine`] (series and parallel, and the [`SpringModel`] enum over all of
+//! them), and [`states`] (stored, released and residual energy between named
+//! mechanism states).
 
 use crate::error::InputError;
+use crate::figure::SourceStatus;
 use serde::{Deserialize, Serialize};
+
+pub mod combine;
+pub mod disc;
+pub mod extension;
+pub mod gas;
+pub mod helical;
+pub mod linear;
+pub mod material;
+mod solve;
+pub mod states;
+pub mod table;
+pub mod torsion;
+
+#[cfg(test)]
+pub(crate) mod testkit;
+
+pub use combine::{Parallel, Series, SpringModel, SpringSpec};
+pub use disc::{DiscSpec, DiscStack};
+pub use extension::{ExtensionSpec, ExtensionSpring};
+pub use gas::{GasSpec, GasSpring};
+pub use helical::{HelicalSpec, HelicalSpring};
+pub use linear::{LinearSpec, LinearSpring};
+pub use material::{Grade, Material};
+pub use states::{State, StateRole, StatesReport};
+pub use table::{TableSpec, TableSpring};
+pub use torsion::{TorsionSpec, TorsionSpring};
+
+/// The force law of a model in words, carried into every figure derived from
+/// it so a reader can trace the number to a formula and a source.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct ForceLaw {
+    /// Model name, e.g. `helical compression spring`.
+    pub model: String,
+    /// Formula of force and energy, e.g. `F = k·s; W = ½·k·(s₂² − s₁²)`.
+    pub formula: String,
+    /// Document and clause the formula comes from.
+    pub source: String,
+    /// How far that source was confirmed.
+    pub status: SourceStatus,
+}
+
+/// Which stress a spring model reports.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum StressKind {
+    /// Corrected torsional shear stress in the wire (helical compression and
+    /// extension springs).
+    Shear,
+    /// Corrected bending stress in the wire (torsion springs).
+    Bending,
+}
+
+/// Wire stress at one deflection, with the permissible value it is compared
+/// against when the material's strength is known.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct StressAt {
+    /// Shear or bending.
+    pub kind: StressKind,
+    /// Corrected stress (Pa).
+    pub stress: f64,
+    /// Permissible stress (Pa), `None` when the tensile strength is unknown.
+    pub permissible: Option<f64>,
+    /// `stress / permissible`, `None` when the permissible stress is unknown.
+    pub ratio: Option<f64>,
+    /// Formula used for the stress and the permissible value.
+    pub method: String,
+    /// Source of that formula.
+    pub source: String,
+    /// Why the permissible stress is missing, or other caveats.
+    pub notes: Vec<String>,
+}
 
 /// Whether a spring's coordinate is a length or an angle.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[cfg_attr(feature = "schema", derive(schemars::JsonSchema))]
 #[serde(rename_all = "snake_case")]
 pub enum Axis {
     /// Deflection in m, force in N, rate in N/m.
@@ -25,6 +106,7 @@ pub enum Axis {
 /// curve) give a higher force while being loaded than while unloading; the
 /// energy a released spring gives back is the integral of the unloading force.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[cfg_attr(feature = "schema", derive(schemars::JsonSchema))]
 #[serde(rename_all = "snake_case")]
 pub enum Travel {
     /// Deflection increasing (spring being wound, compressed or stretched).
@@ -73,6 +155,30 @@ pub trait Spring {
         } else {
             0.0
         }
+    }
+
+    /// The model's force law, formula and source, for figure provenance.
+    /// Models override this; the default names no source.
+    fn force_law(&self) -> ForceLaw {
+        ForceLaw {
+            model: "spring".into(),
+            formula: "W = ∫F dq".into(),
+            source: String::new(),
+            status: SourceStatus::CommonPractice,
+        }
+    }
+
+    /// Corrected wire stress at deflection `q` (loading branch), for models
+    /// that know their wire geometry; `None` otherwise.
+    fn stress(&self, _q: f64) -> Option<StressAt> {
+        None
+    }
+
+    /// Worrying but valid facts about the spring as entered (a spring index
+    /// outside the usual range, a falling characteristic, buckling, a
+    /// discrepancy in the material data). Empty by default.
+    fn notes(&self) -> Vec<String> {
+        Vec::new()
     }
 
     /// `Ok(())` when `q` lies in the admissible range, otherwise an error on

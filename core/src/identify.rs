@@ -1,1 +1,0 @@
-//! identify (being written).
