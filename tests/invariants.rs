@@ -145,13 +145,23 @@ fn trunk_pins_the_wasm_bindgen_version_of_cargo_lock() {
         .split("[[package]]")
         .find(|block| block.contains("name = \"wasm-bindgen\"\n"))
         .and_then(|block| block.lines().find(|l| l.starts_with("version = ")))
-        .map(|l| l.trim_start_matches("version = ").trim_matches('"').to_string())
+        .map(|l| {
+            l.trim_start_matches("version = ")
+                .trim_matches('"')
+                .to_string()
+        })
         .expect("wasm-bindgen in Cargo.lock");
     let trunk = std::fs::read_to_string(root.join("trunk.toml")).unwrap();
     assert!(
         trunk.contains(&format!("wasm_bindgen = \"{locked}\"")),
         "trunk.toml must pin wasm_bindgen = \"{locked}\" (Cargo.lock)"
     );
-    assert!(trunk.contains("offline = true"), "trunk must never download tools");
-    assert!(trunk.contains("wasm_opt = \"version_132\""), "wasm-opt must be pinned");
+    assert!(
+        trunk.contains("offline = true"),
+        "trunk must never download tools"
+    );
+    assert!(
+        trunk.contains("wasm_opt = \"version_132\""),
+        "wasm-opt must be pinned"
+    );
 }
