@@ -470,6 +470,14 @@ const EXPO1: f64 = 0.2 - BETA * 0.75;
 /// before giving up: 4⁻³⁰ ≈ 1e-18 of the original step.
 const MAX_NONFINITE_RETRIES: usize = 30;
 
+/// A root of `f` in the bracket `[a, b]` (with `fa = f(a)`, `fb = f(b)` of
+/// opposite signs), by Brent's method to within `tol` (absolute; 0 for
+/// machine precision). Bounded: at most 200 evaluations of `f`. Returns the
+/// end with the smaller |f| when `[a, b]` is not a bracket.
+pub fn find_root<F: FnMut(f64) -> f64>(f: F, a: f64, b: f64, fa: f64, fb: f64, tol: f64) -> f64 {
+    root::brent(f, a, b, fa, fb, tol.max(0.0))
+}
+
 /// Integrate `sys` from `(t0, y0)` with settings `cfg`, without output.
 ///
 /// # Errors
