@@ -91,11 +91,7 @@ impl InputError {
             Problem::NotPositive => "must be greater than zero".into(),
             Problem::Negative => "must be zero or more".into(),
             Problem::OutOfRange { min, max } => {
-                format!(
-                    "must be between {} and {} (SI units)",
-                    fmt_g(*min),
-                    fmt_g(*max)
-                )
+                format!("must be between {} and {} (SI units)", fmt_g(*min), fmt_g(*max))
             }
             Problem::Unit { message } | Problem::Invalid { message } => message.clone(),
         }
@@ -173,10 +169,7 @@ mod tests {
     fn within_builds_a_dotted_path() {
         let e = InputError::new("wire_diameter", Problem::NotPositive).within("spring");
         assert_eq!(e.field, "spring.wire_diameter");
-        assert_eq!(
-            e.to_string(),
-            "spring.wire_diameter: must be greater than zero"
-        );
+        assert_eq!(e.to_string(), "spring.wire_diameter: must be greater than zero");
     }
 
     #[test]

@@ -67,12 +67,7 @@ impl Provenance {
         if self.clause.is_empty() {
             format!("{} ({})", self.document, self.status.describe())
         } else {
-            format!(
-                "{}, {} ({})",
-                self.document,
-                self.clause,
-                self.status.describe()
-            )
+            format!("{}, {} ({})", self.document, self.clause, self.status.describe())
         }
     }
 }

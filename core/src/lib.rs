@@ -23,22 +23,22 @@
 #![forbid(unsafe_code)]
 #![warn(missing_docs)]
 
-pub mod assess;
-pub mod cautions;
-pub mod contact;
 pub mod error;
 pub mod figure;
-pub mod identify;
-pub mod limits;
-pub mod mechanism;
-pub mod ode;
-pub mod release;
-pub mod report;
-pub mod scenario;
-pub mod sizing;
-pub mod spring;
-pub mod tolerance;
 pub mod units;
+pub mod spring;
+pub mod identify;
+pub mod ode;
+pub mod mechanism;
+pub mod release;
+pub mod contact;
+pub mod sizing;
+pub mod tolerance;
+pub mod limits;
+pub mod cautions;
+pub mod scenario;
+pub mod report;
+pub mod assess;
 
 pub use error::{InputError, Problem};
 pub use figure::{Figure, Provenance, SourceStatus, Verdict};
