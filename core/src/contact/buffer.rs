@@ -770,6 +770,10 @@ impl<C: Carrier> OdeSystem<3> for StrokeOde<'_, '_, C> {
             (EV_STOP, _) => y[1],
             (EV_LIMIT, Leg::Compress) => y[0] - self.buffer.stroke,
             (EV_LIMIT, Leg::Return) => y[0],
+            // Creep: speed and acceleration both negligible. While the speed
+            // alone is above the threshold the sign is known without the
+            // acceleration (saves a force evaluation per step).
+            _ if y[1].abs() > self.v_creep => y[1].abs() - self.v_creep,
             _ => y[1].abs().max(self.accel(y[0], y[1]).abs() * self.t_ref) - self.v_creep,
         }
     }
@@ -968,22 +972,22 @@ fn stroke<C: Carrier>(
     let energy = y1[2];
     let compression = rec.steps;
 
-    // Peaks over the compression: nodes, interior samples, and the exact end.
-    const SUB: usize = 8;
-    let mut peak_f: f64 = 0.0;
-    let mut peak_a: f64 = 0.0;
+    // Peaks over the compression: the step ends and midpoints, refined by
+    // golden-section search where a midpoint beats both ends of its step
+    // (an interior maximum), and the exact values at contact and at the end.
+    let force_at = |st: &DenseStep<3>, t: f64| {
+        let y = st.eval(t);
+        buffer.force_one(y[0], y[1], Leg::Compress, level)
+    };
+    let decel_at = |st: &DenseStep<3>, t: f64| -st.derivative(t)[1];
+    let mut peak_f = buffer
+        .force_one(0.0, v0, Leg::Compress, level)
+        .max(buffer.force_one(y1[0], y1[1], Leg::Compress, level));
+    let mut peak_a = (-sys.accel(0.0, v0)).max(-sys.accel(y1[0], y1[1]));
     for st in &compression {
-        for j in 0..=SUB {
-            let t = st.t0 + (st.t_stop - st.t0) * j as f64 / SUB as f64;
-            let y = st.eval(t);
-            peak_f = peak_f.max(buffer.force_one(y[0], y[1], Leg::Compress, level));
-            peak_a = peak_a.max(-st.derivative(t)[1]);
-        }
+        peak_f = peak_f.max(step_peak(st, &force_at));
+        peak_a = peak_a.max(step_peak(st, &decel_at));
     }
-    peak_f = peak_f.max(buffer.force_one(y1[0], y1[1], Leg::Compress, level));
-    peak_a = peak_a.max(-sys.accel(y1[0], y1[1]));
-    peak_a = peak_a.max(-sys.accel(0.0, v0));
-    peak_f = peak_f.max(buffer.force_one(0.0, v0, Leg::Compress, level));
     if let Some(eta) = buffer.efficiency() {
         // Peak force by the efficiency convention; the deceleration with the
         // peak force in place of the mean one (conservative).
@@ -1063,6 +1067,41 @@ fn stroke<C: Carrier>(
         law_method: buffer.law_method(),
         compression,
     })
+}
+
+/// Largest value of `f` over one step: its ends, its midpoint, and a
+/// golden-section refinement when the midpoint beats both ends.
+fn step_peak<F: Fn(&DenseStep<3>, f64) -> f64>(st: &DenseStep<3>, f: &F) -> f64 {
+    let (a, b) = (st.t0, st.t_stop);
+    let (fa, fb) = (f(st, a), f(st, b));
+    let m = 0.5 * (a + b);
+    let fm = f(st, m);
+    if !(fm > fa && fm > fb) {
+        return fa.max(fb).max(fm);
+    }
+    // Golden-section search on [a, b] for the interior maximum; 30
+    // iterations shrink the bracket by 0.618³⁰ ≈ 5e-7 of the step.
+    const INV_PHI: f64 = 0.618_033_988_749_894_9;
+    let (mut lo, mut hi) = (a, b);
+    let mut c = hi - INV_PHI * (hi - lo);
+    let mut d = lo + INV_PHI * (hi - lo);
+    let (mut fc, mut fd) = (f(st, c), f(st, d));
+    for _ in 0..30 {
+        if fc > fd {
+            hi = d;
+            d = c;
+            fd = fc;
+            c = hi - INV_PHI * (hi - lo);
+            fc = f(st, c);
+        } else {
+            lo = c;
+            c = d;
+            fc = fd;
+            d = lo + INV_PHI * (hi - lo);
+            fd = f(st, d);
+        }
+    }
+    fm.max(fc).max(fd)
 }
 
 fn sample_stroke(

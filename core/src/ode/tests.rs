@@ -354,3 +354,18 @@ fn step_rejections_recover_from_a_kink() {
     assert!((sol.y[0] + 1.1).abs() < GLOBAL_REL_AT_1E8 * 10.0);
     assert!(sol.stats.rejected_steps > 0);
 }
+
+#[test]
+fn approximate_power_of_the_controller_is_close_enough() {
+    // The controller's x^p must track powf to ~1e-5 (its truncated series:
+    // 2·(1/3)⁹/9 for the logarithm, (ln 2)⁸/8! for the exponential).
+    const APPROX_POW_REL: f64 = 2e-5;
+    for &p in &[EXPO1, BETA, 0.2] {
+        for i in -300..300 {
+            let x = 1.37f64.powi(i);
+            let r = (approx_pow(x, p) - x.powf(p)).abs() / x.powf(p);
+            assert!(r < APPROX_POW_REL, "{x}^{p}: {r}");
+        }
+    }
+    assert_eq!(approx_pow(0.0, 0.17), 0.0);
+}

@@ -485,6 +485,9 @@ impl OdeSystem<3> for ReleaseOde<'_, '_> {
         match index {
             EV_CONTACT => y[0] - self.travel,
             EV_STOP => y[1],
+            // While the speed alone is above the threshold the sign is known
+            // without the acceleration (saves a force evaluation per step).
+            EV_CREEP if y[1].abs() > self.v_creep => y[1].abs() - self.v_creep,
             EV_CREEP => y[1].max(self.accel(y[0], y[1]).abs() * self.t_ref) - self.v_creep,
             EV_SPRING_LOW => self
                 .mount
