@@ -856,6 +856,15 @@ impl ReleaseImpact {
 /// into `buffer` at the contact point, with every mechanism force still
 /// acting (a spring-closed door pressing its buffer).
 ///
+/// For a hinged part the buffer compression is `x = r_b·(θ − θ_contact)`
+/// at the buffer radius `r_b`; the part is seen there with mass `I/r_b²`
+/// and forces `T/r_b`. The release history
+/// ([`ReleaseOutcome::history`]) covers the latch to contact, the stroke
+/// history ([`ImpactOutcome::history`]) continues on the same clock and
+/// coordinate. Assumption: a spring that only bears on the part and runs
+/// out during the stroke stops pushing there, but its mass share stays with
+/// the part for the rest of the stroke.
+///
 /// # Errors
 /// As [`release::release`] and [`impact`]; `buffer_radius` must be > 0.
 pub fn release_into_buffer(

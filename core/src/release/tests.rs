@@ -356,3 +356,85 @@ proptest! {
         }
     }
 }
+
+#[test]
+fn block_sliding_down_an_incline_with_friction() {
+    // a = g·(sin θ − μ·cos θ), v = √(2·a·L), t = √(2·L/a) (inclined plane
+    // with Coulomb friction; any mechanics textbook, common practice).
+    let (theta, mu, l) = (0.5f64, 0.2f64, 0.8f64);
+    let mech = Mechanism::Translating(
+        TranslatingPart::new(TranslatingConfig {
+            mass: 3.0,
+            spring: None,
+            travel: l,
+            incline: -theta,
+            friction: Friction::Coefficient(mu),
+            damping: 0.0,
+            drive_force: 0.0,
+            include_spring_mass: true,
+        })
+        .unwrap(),
+    );
+    let out = release(&mech, &ReleaseConfig::default()).unwrap();
+    let a = crate::G_N * (theta.sin() - mu * theta.cos());
+    assert!(((out.speed() - (2.0 * a * l).sqrt()) / (2.0 * a * l).sqrt()).abs() < ROUNDING * 10.0);
+    assert!(((out.time - (2.0 * l / a).sqrt()) / (2.0 * l / a).sqrt()).abs() < ODE_REL);
+    // Friction work μ·m·g·cos θ·L, gravity m·g·sin θ·L.
+    assert!((out.work.friction + mu * 3.0 * crate::G_N * theta.cos() * l).abs() < ROUNDING * 100.0);
+}
+
+#[test]
+fn lid_on_a_strut_under_gravity_matches_the_energy_balance() {
+    // A lid on a horizontal hinge falls shut from 80° open against a
+    // compression strut (plane frame: x towards the hinge's back, y up, so
+    // closing turns counter-clockwise). The ODE must agree with the
+    // work–energy theorem with the exact strut and gravity work.
+    use crate::mechanism::{
+        InertiaSpec, RotatingConfig, RotatingPart, SpringMount, Strut, StrutMode,
+    };
+    let gas = TestSpring {
+        k: 600.0,
+        axis: Axis::Linear,
+        range: (0.0, 0.15),
+        mass_share: 0.0,
+    };
+    let psi0 = std::f64::consts::PI - 80f64.to_radians();
+    for tilt in [std::f64::consts::FRAC_PI_2, 0.6] {
+        let mech = Mechanism::Rotating(
+            RotatingPart::new(RotatingConfig {
+                inertia: InertiaSpec::PlateAboutEdge {
+                    mass: 6.0,
+                    width: 0.5,
+                },
+                cg_angle_at_latch: psi0,
+                hinge_tilt: tilt,
+                spring: Some(SpringMount::Strut(Strut {
+                    spring: &gas,
+                    frame_point: [-0.05, -0.25],
+                    part_point_radius: 0.15,
+                    part_point_angle: psi0,
+                    free_length: 0.41,
+                    mode: StrutMode::Compression,
+                })),
+                travel: 80f64.to_radians(),
+                friction_torque: 0.1,
+                damping: 0.0,
+                drive_torque: 0.0,
+                hazard_radius: 0.5,
+            })
+            .unwrap(),
+        );
+        let out = release(&mech, &ReleaseConfig::default()).unwrap();
+        assert!(out.reached_contact(), "{:?}", out.end);
+        assert!(
+            out.energy_check().unwrap() < ODE_REL,
+            "{:?}",
+            out.energy_check()
+        );
+        assert!(
+            out.work.spring < 0.0,
+            "the strut is compressed as the lid closes"
+        );
+        assert!(out.work.gravity > 0.0);
+    }
+}
