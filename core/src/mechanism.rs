@@ -1,1 +1,0 @@
-//! mechanism (being written).

@@ -1,1 +1,0 @@
-//! ode (being written).

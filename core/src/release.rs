@@ -1,1 +1,0 @@
-//! release (being written).
