@@ -9,7 +9,9 @@
 //! friction (work–energy balance; the trade writes `E_total = E_kinetic +
 //! F_drive·s` and selects absorbers by the effective mass
 //! `m_e = 2·E_total/v²`). Energy per hour is `E_total` × cycles per hour;
-//! the heat load is the energy the buffer absorbs per hour over 3600 s.
+//! the heat load is the energy the buffer absorbs per hour over 3600 s. An
+//! orifice damper hands `½·m·v_r²` to the end stop: its figures count only
+//! what the damper absorbs, as the impact model does.
 //!
 //! Each limit is monotone in the stroke (a longer stroke is softer), so it
 //! gives a least stroke, in closed form where one exists (the private
@@ -154,7 +156,7 @@ pub enum BufferType {
     LinearSpring,
     /// Progressive (or degressive) elastomer `F = a·xⁿ`.
     PowerLaw {
-        /// Exponent `n`, in `(0, 10]`.
+        /// Exponent `n`, in `[0.2, 10]` (the range the impact model takes).
         exponent: f64,
     },
     /// Hydraulic absorber as an ideal constant-force device with efficiency
@@ -196,7 +198,7 @@ impl BufferType {
         Ok(match *self {
             BufferType::LinearSpring => Law::Linear,
             BufferType::PowerLaw { exponent } => Law::Power {
-                n: positive_up_to("exponent", exponent, 10.0)?,
+                n: check::in_range("exponent", exponent, 0.2, 10.0)?,
             },
             BufferType::ConstantForce { efficiency } => Law::Constant {
                 eta: positive_up_to("efficiency", efficiency, 1.0)?,
@@ -378,13 +380,14 @@ pub struct SizedBuffer {
     pub mean_deceleration: f64,
     /// Time from contact to standstill (orifice: to the residual speed), s.
     pub stop_time: f64,
-    /// Energy per cycle `E_total = ½·m·v² + F_n·s`, J.
+    /// Energy the buffer absorbs per cycle, `E = ½·m·v² + F_n·s`, less
+    /// `½·m·v_r²` handed to the end stop by an orifice damper, J.
     pub energy_per_cycle: f64,
-    /// Effective mass `2·E_total/v²`, kg.
+    /// Effective mass `2·E/v²`, kg.
     pub effective_mass: f64,
-    /// Energy per hour `E_total × cycles/h`, J.
+    /// Energy per hour `E × cycles/h`, J.
     pub energy_per_hour: f64,
-    /// Mean heat load of the energy the buffer itself absorbs, W.
+    /// Mean heat load `E × cycles/h / 3600 s`, W.
     pub heat_load: f64,
     /// Speed handed to the end stop (orifice damper), m/s; 0 otherwise.
     pub residual_speed: f64,
@@ -738,9 +741,9 @@ fn finish(p: Point, d: &Duty, n_per_h: f64, lim: &SizingLimits) -> SizedBuffer {
         peak_deceleration: p.peak_deceleration,
         mean_deceleration: p.mean_deceleration,
         stop_time: p.stop_time,
-        energy_per_cycle: e_total,
-        effective_mass: 2.0 * e_total / (d.v * d.v),
-        energy_per_hour: e_total * n_per_h,
+        energy_per_cycle: absorbed,
+        effective_mass: 2.0 * absorbed / (d.v * d.v),
+        energy_per_hour: absorbed * n_per_h,
         heat_load: absorbed * n_per_h / SECONDS_PER_HOUR,
         residual_speed: p.residual_speed,
         residual_energy,
@@ -968,7 +971,7 @@ impl SizingOutcome {
                 Dim::Mass,
                 d.effective_mass,
             )
-            .method("m_e = 2·E_total/v²")
+            .method("m_e = 2·E/v²")
             .source(energy_src)
             .assume("the figure absorber catalogues are selected by"),
         );
@@ -979,7 +982,11 @@ impl SizingOutcome {
                 Dim::Energy,
                 d.energy_per_cycle,
             )
-            .method("E_total = ½·m·v² + F_n·s")
+            .method(if d.residual_speed > 0.0 {
+                "E = ½·m·v² + F_n·s − ½·m·v_r² (the end stop takes ½·m·v_r²)"
+            } else {
+                "E = ½·m·v² + F_n·s"
+            })
             .source(energy_src)
             .assume(&fnet),
         );
@@ -990,7 +997,7 @@ impl SizingOutcome {
                 Dim::Energy,
                 d.energy_per_hour,
             )
-            .method("E_total × cycles per hour")
+            .method("E × cycles per hour")
             .source(energy_src)
             .assume(&format!("{} cycles per hour", self.cycles_per_hour)),
         );
@@ -1000,11 +1007,7 @@ impl SizingOutcome {
             Dim::Power,
             d.heat_load,
         )
-        .method(if d.residual_speed > 0.0 {
-            "(E_total − ½·m·v_r²) × cycles per hour / 3600 s"
-        } else {
-            "E_total × cycles per hour / 3600 s"
-        })
+        .method("E × cycles per hour / 3600 s")
         .source(energy_src);
         if matches!(
             self.buffer,

@@ -305,7 +305,9 @@ fn force_limit_at_or_below_the_floor_is_reported() {
         },
     );
     let o = size_buffer(&inp, &BufferType::LinearSpring).unwrap();
-    assert!(reasons(&o)[0].explain().contains("900.0 N is at or below 1000 N"));
+    assert!(reasons(&o)[0]
+        .explain()
+        .contains("900.0 N is at or below 1000 N"));
     assert_eq!(
         reasons(&o),
         &[Infeasibility::BelowFloor {
@@ -439,7 +441,8 @@ fn orifice_damper_closed_forms_without_drive() {
         0.5 * 20.0 * 0.04,
         max_relative = REL_CLOSED
     );
-    assert_relative_eq!(d.energy_per_cycle, 40.0, max_relative = REL_CLOSED);
+    // Energy the damper absorbs: ½·m·v₀² − ½·m·v_r² = 40 − 0.4 J.
+    assert_relative_eq!(d.energy_per_cycle, 39.6, max_relative = REL_CLOSED);
     // Mean deceleration without drive is c·v₀·v_r/m (from
     // t = (m/c)·(1/v_r − 1/v₀)); as a limit it gives c back.
     let mean = c * 2.0 * 0.2 / 20.0;
@@ -787,7 +790,7 @@ fn sized_buffers_stop_the_part_as_predicted() {
 fn arb_type() -> impl Strategy<Value = BufferType> {
     prop_oneof![
         Just(BufferType::LinearSpring),
-        (0.3f64..6.0).prop_map(|n| BufferType::PowerLaw { exponent: n }),
+        (0.2f64..6.0).prop_map(|n| BufferType::PowerLaw { exponent: n }),
         (0.3f64..=1.0).prop_map(|e| BufferType::ConstantForce { efficiency: e }),
         (0.01f64..0.5).prop_map(|f| BufferType::Orifice { residual_speed: f }),
         (1.0f64..4.0, 1.0f64..1.67).prop_map(|(p, k)| BufferType::GasSpring {
