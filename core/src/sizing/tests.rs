@@ -17,6 +17,13 @@ const REL_PRINTED_4SF: f64 = crate::test_tol::REL_PRINTED_4SF;
 /// error is ~1e-9 relative for smooth laws and ~1e-7 for a power law with a
 /// non-integer exponent (force not smooth at first contact); allow 1e-6.
 const REL_FORWARD: f64 = 1e-6;
+/// The same for a power law with exponent below 1: its force ∝ xⁿ has an
+/// infinite slope at contact, which costs RK4 its order over the first
+/// steps (measured 3e-6 relative on the stroke at n = 0.2 with 20 000
+/// steps); allow 1e-4. The sized stroke itself is exact: the energy balance
+/// is checked in closed form in
+/// `closed_forms_of_the_energy_balance_hold_for_sized_buffers`.
+const REL_FORWARD_ROUGH: f64 = 1e-4;
 /// An orifice design whose terminal speed is within this fraction of the
 /// residual speed is not integrated forward: the approach to v_r is
 /// asymptotic and RK4's own ~1e-10 error in v decides the crossing.
@@ -707,17 +714,21 @@ fn check_forward(inp: &SizingInput, d: &SizedBuffer) -> Result<(), String> {
         ));
     };
     let rel = |a: f64, b: f64| (a - b).abs() / b.abs().max(f64::MIN_POSITIVE);
+    let tol = match d.setting {
+        BufferSetting::PowerLaw { exponent, .. } if exponent < 1.0 => REL_FORWARD_ROUGH,
+        _ => REL_FORWARD,
+    };
     for (name, got, want) in [
         ("stroke", f.stroke, d.stroke),
         ("peak force", f.peak_force, d.peak_force),
         ("stop time", f.stop_time, d.stop_time),
     ] {
-        if rel(got, want) > REL_FORWARD {
+        if rel(got, want) > tol {
             return Err(format!("{name}: forward {got} vs sized {want}"));
         }
     }
     let l = inp.limits;
-    let within = |val: f64, lim: Option<f64>| lim.is_none_or(|l| val <= l * (1.0 + REL_FORWARD));
+    let within = |val: f64, lim: Option<f64>| lim.is_none_or(|l| val <= l * (1.0 + tol));
     let mean = (inp.impact_speed - d.residual_speed) / f.stop_time;
     if !(within(f.peak_force, l.peak_force)
         && within(f.peak_deceleration, l.peak_deceleration)
