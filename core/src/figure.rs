@@ -275,4 +275,34 @@ pub mod ids {
 
     /// Smallest gap left at the closing point (m).
     pub const GAP_CLOSING_GAP: &str = "gap.closing_gap";
+
+    /// Buffer sizing: stroke the sized buffer uses to stop the part (m).
+    pub const SIZING_STROKE: &str = "sizing.stroke";
+    /// Buffer sizing: rate of a sized linear spring, or the secant rate
+    /// (end force / stroke) of a power-law buffer (N/m).
+    pub const SIZING_RATE: &str = "sizing.rate";
+    /// Buffer sizing: force level of a constant-force absorber (mean force)
+    /// or a gas spring's force at contact (N).
+    pub const SIZING_FORCE_LEVEL: &str = "sizing.force_level";
+    /// Buffer sizing: coefficient c of an orifice damper F = c·v² (N·s²/m²).
+    pub const SIZING_DAMPING: &str = "sizing.damping_coefficient";
+    /// Buffer sizing: peak buffer force of the sized buffer (N).
+    pub const SIZING_PEAK_FORCE: &str = "sizing.peak_force";
+    /// Buffer sizing: peak deceleration of the part (m/s²).
+    pub const SIZING_PEAK_DECELERATION: &str = "sizing.peak_deceleration";
+    /// Buffer sizing: mean deceleration, contact speed / stopping time (m/s²).
+    pub const SIZING_MEAN_DECELERATION: &str = "sizing.mean_deceleration";
+    /// Buffer sizing: time from contact to standstill (s).
+    pub const SIZING_STOP_TIME: &str = "sizing.stop_time";
+    /// Buffer sizing: effective mass 2·E_total/v² used to select absorbers (kg).
+    pub const SIZING_EFFECTIVE_MASS: &str = "sizing.effective_mass";
+    /// Buffer sizing: energy per cycle, kinetic plus propelling work (J).
+    pub const SIZING_ENERGY_PER_CYCLE: &str = "sizing.energy_per_cycle";
+    /// Buffer sizing: energy per hour at the cycle rate (J, per hour).
+    pub const SIZING_ENERGY_PER_HOUR: &str = "sizing.energy_per_hour";
+    /// Buffer sizing: mean heat load of the energy the buffer absorbs (W).
+    pub const SIZING_HEAT_LOAD: &str = "sizing.heat_load";
+    /// Buffer sizing: energy left for the end stop when an orifice damper
+    /// hands over at its residual speed (J).
+    pub const SIZING_RESIDUAL_ENERGY: &str = "sizing.residual_energy";
 }

@@ -1,1 +1,0 @@
-//! sizing (being written).
