@@ -22,7 +22,7 @@ export const CHROMIUM_ARGS = [
 const HARMLESS = [/integrity attribute is currently ignored for preload/i];
 
 /** Launch a browser context with a fresh (or given) profile folder. */
-export async function launch({ viewport = { width: 800, height: 1280 }, userDataDir, offline = false } = {}) {
+export async function launch({ viewport = { width: 800, height: 1280 }, userDataDir, offline = false, colorScheme = 'light' } = {}) {
   const dir = userDataDir ?? fs.mkdtempSync(path.join(os.tmpdir(), 'jw-profile-'));
   const context = await chromium.launchPersistentContext(dir, {
     executablePath: '/usr/bin/chromium',
@@ -30,6 +30,7 @@ export async function launch({ viewport = { width: 800, height: 1280 }, userData
     args: CHROMIUM_ARGS,
     viewport,
     offline,
+    colorScheme,
   });
   const origin = new URL(BASE_URL).origin;
   const log = { requests: [], foreign: [], errors: [] };
@@ -85,4 +86,32 @@ export async function typeInto(locator, text) {
   await locator.press('Control+A');
   await locator.press('Delete');
   await locator.pressSequentially(text, { delay: 5 });
+}
+
+/** Open the sheet and wait until the WebAssembly app has mounted. */
+export async function openSheet(page) {
+  await page.goto(BASE_URL);
+  await page.locator('#fig-energy-stored_latched .figure-value').waitFor({ timeout: 20000 });
+}
+
+/** Text of the value line of figure card `id` (`fig-…` element id). */
+export async function figureText(page, id) {
+  return (await page.locator(`#${id} .figure-value`).textContent()).trim();
+}
+
+/**
+ * Run axe-core (from node_modules) on the page and return the violations
+ * whose impact is serious or critical, plus a one-line summary of all.
+ */
+export async function axeAudit(page) {
+  const axePath = path.resolve('node_modules/axe-core/axe.min.js');
+  await page.addScriptTag({ path: axePath });
+  const result = await page.evaluate(async () => {
+    // eslint-disable-next-line no-undef
+    const r = await axe.run(document, { resultTypes: ['violations'] });
+    return r.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.length,
+      targets: v.nodes.slice(0, 3).map((n) => n.target.join(' ')) }));
+  });
+  const bad = result.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+  return { bad, all: result };
 }

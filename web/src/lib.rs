@@ -1,67 +1,68 @@
 //! Joulewise in the browser: the assessment sheet. Components format what
 //! `joulewise_core` returns and compute nothing physical themselves.
+//!
+//! Building blocks, one per file: [`field`] (quantity input with unit
+//! chooser and tolerance), [`figure_card`], [`check_row`], [`cautions_panel`],
+//! [`verdict`], [`plot`] (SVG line plots, histogram, margin bars), with the
+//! display unit system in [`system`] and two-way bindings in [`bind`].
+//! [`trial`] is a provisional sheet wired to the core models directly.
 #![forbid(unsafe_code)]
 
+pub mod bind;
+pub mod cautions_panel;
+pub mod check_row;
 pub mod field;
+pub mod figure_card;
+pub mod html;
+pub mod plot;
+pub mod system;
+pub mod trial;
+pub mod verdict;
 
-use field::QuantityField;
-use joulewise_core::spring::linear::{LinearSpec, LinearSpring};
-use joulewise_core::spring::{Spring, Travel};
-use joulewise_core::units::{self, Dim, UnitSystem};
+use joulewise_core::units::UnitSystem;
 use leptos::prelude::*;
-
-/// Stored energy between two deflections of a linear spring, as text for the
-/// sheet, or the reasons it cannot be computed.
-pub fn stored_energy_text(rate: &str, from: &str, to: &str) -> Result<String, Vec<String>> {
-    let mut problems = Vec::new();
-    let mut read = |text: &str, dim: Dim, unit: &str, field: &str| {
-        units::parse_quantity(text, dim, unit)
-            .map_err(|e| problems.push(format!("{field}: {}", e.message(dim))))
-            .ok()
-    };
-    let k = read(rate, Dim::LinearRate, "N/mm", "Spring rate");
-    let x1 = read(from, Dim::Length, "mm", "Deflection, released");
-    let x2 = read(to, Dim::Length, "mm", "Deflection, latched");
-    let (Some(k), Some(x1), Some(x2)) = (k, x1, x2) else {
-        return Err(problems);
-    };
-    let spec = LinearSpec {
-        rate: k,
-        free_length: None,
-        max_deflection: Some(x1.abs().max(x2.abs()).max(f64::MIN_POSITIVE)),
-        solid_length: None,
-    };
-    let spring =
-        LinearSpring::new(spec).map_err(|e| vec![format!("Spring rate: {}", e.message())])?;
-    // Energy given back between the latched and released deflections.
-    let e = spring.work(x1, x2, Travel::Unloading);
-    Ok(units::format_quantity(e, Dim::Energy, UnitSystem::Si).to_string())
-}
+use system::{DisplaySystem, SystemSwitch};
 
 /// The page.
 #[component]
 pub fn App() -> impl IntoView {
-    let rate = RwSignal::new(String::from("3 N/mm"));
-    let from = RwSignal::new(String::from("10 mm"));
-    let to = RwSignal::new(String::from("40 mm"));
-    let energy = Memo::new(move |_| stored_energy_text(&rate.get(), &from.get(), &to.get()));
+    DisplaySystem::provide(UnitSystem::Si);
+    // A printout carries every figure's method, source and assumptions:
+    // open the disclosures before the browser lays out the pages.
+    let _ = window_event_listener(leptos::ev::beforeprint, |_| open_all_details());
     view! {
-        <main>
-            <h1>"Joulewise"</h1>
-            <QuantityField id="rate" label="Spring rate" dim=Dim::LinearRate unit="N/mm" text=rate />
-            <QuantityField id="x-released" label="Deflection, released" dim=Dim::Length unit="mm" text=from />
-            <QuantityField id="x-latched" label="Deflection, latched" dim=Dim::Length unit="mm" text=to />
-            <section aria-live="polite">
-                <h2>"Energy released"</h2>
-                {move || match energy.get() {
-                    Ok(text) => view! { <p id="energy" class="figure-value">{text}</p> }.into_any(),
-                    Err(reasons) => view! {
-                        <p id="energy" class="figure-missing">
-                            "Cannot compute: " {reasons.join("; ")}
-                        </p>
-                    }.into_any(),
-                }}
-            </section>
+        <header class="top">
+            <div class="brand">
+                <span class="brand-name">"Joulewise"</span>
+                <span class="brand-line">"Spring energy and end-of-travel impact"</span>
+            </div>
+            <SystemSwitch />
+        </header>
+        <main id="sheet">
+            <h1 class="sheet-title">"Assessment sheet"</h1>
+            <trial::TrialSheet />
         </main>
+        <footer class="foot">
+            <p>
+                "Figures are estimates from the inputs above: confirm them by measurement. "
+                "A competent person signs off the assessment; local law and standards prevail. "
+                "Joulewise " {joulewise_core::VERSION}
+            </p>
+        </footer>
+    }
+}
+
+/// Open every `<details>` in the page (for print).
+fn open_all_details() {
+    let Ok(list) = document().query_selector_all("details") else {
+        return;
+    };
+    for i in 0..list.length() {
+        if let Some(el) = list
+            .item(i)
+            .and_then(|n| wasm_bindgen::JsCast::dyn_into::<web_sys::Element>(n).ok())
+        {
+            let _ = el.set_attribute("open", "");
+        }
     }
 }
