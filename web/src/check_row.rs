@@ -50,7 +50,7 @@ const BAR_CAP: f64 = 3.0;
 const BAR_SCALE_MIN: f64 = 1.5;
 
 /// Geometry of a margin bar in a 0..100 wide box: (scale end, bar length,
-/// limit mark position, arrow when the utilisation exceeds [`BAR_CAP`]).
+/// limit mark position, arrow when the utilisation exceeds 3, i.e. 300 %).
 pub fn bar_geometry(ratio: f64) -> (f64, f64, f64, bool) {
     let u = ratio.max(0.0);
     let end = u.clamp(BAR_SCALE_MIN, BAR_CAP);

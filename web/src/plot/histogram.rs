@@ -5,7 +5,7 @@
 
 use super::line::Marker;
 use super::{
-    frame, nice_ticks, push_axis_titles, push_grid, push_markers, push_text, push_title_desc,
+    frame, nice_ticks, push_axis_titles, push_empty, push_grid, push_markers, push_title_desc,
     scale, view_box, with_unit, Axis, PlotFrame,
 };
 use crate::html::push_el;
@@ -89,6 +89,11 @@ pub fn render_svg(c: &HistChart, sys: UnitSystem, id: &str) -> String {
     use frame::{BOTTOM, HEIGHT, LEFT, RIGHT, TOP, WIDTH};
     let mut out = String::with_capacity(4096);
     push_title_desc(&mut out, id, &c.title, &c.describe(sys));
+    if c.counts.iter().all(|&k| k == 0) {
+        push_empty(&mut out);
+        push_axis_titles(&mut out, &c.x.title(sys), "Samples per bin");
+        return out;
+    }
     let bottom = HEIGHT - BOTTOM;
     let (lo, hi) = (c.x.shown(c.low, sys), c.x.shown(c.high, sys));
     let marks: Vec<f64> = c.markers.iter().map(|m| c.x.shown(m.x, sys)).collect();
@@ -128,16 +133,6 @@ pub fn render_svg(c: &HistChart, sys: UnitSystem, id: &str) -> String {
         .map(|(m, x)| (px(x), None, m.label.as_str()))
         .collect();
     push_markers(&mut out, &marks);
-    if peak == 0 {
-        push_text(
-            &mut out,
-            0.5 * (LEFT + WIDTH - RIGHT),
-            0.5 * (TOP + bottom),
-            "middle",
-            "label empty",
-            "Not computed: see below",
-        );
-    }
     push_axis_titles(&mut out, &c.x.title(sys), "Samples per bin");
     out
 }

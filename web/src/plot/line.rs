@@ -6,8 +6,8 @@
 //! hatched, so the plot reads in greyscale print.
 
 use super::{
-    frame, nice_ticks, push_axis_titles, push_grid, push_hatch, push_line, push_markers, push_text,
-    push_title_desc, scale, view_box, with_unit, Axis, PlotFrame,
+    frame, nice_ticks, push_axis_titles, push_empty, push_grid, push_hatch, push_line,
+    push_markers, push_text, push_title_desc, scale, view_box, with_unit, Axis, PlotFrame,
 };
 use crate::html::{push_el, push_esc};
 use crate::system::DisplaySystem;
@@ -250,6 +250,12 @@ pub fn render_svg(c: &LineChart, sys: UnitSystem, id: &str) -> String {
     use frame::{BOTTOM, HEIGHT, LEFT, RIGHT, TOP, WIDTH};
     let mut out = String::with_capacity(8192);
     push_title_desc(&mut out, id, &c.title, &c.describe(sys));
+    if !c.has_data() {
+        // No scale to show: the frame, the axis titles and why, nothing more.
+        push_empty(&mut out);
+        push_axis_titles(&mut out, &c.x.title(sys), &c.y.title(sys));
+        return out;
+    }
     push_hatch(&mut out, id);
     let series: Vec<Vec<(f64, f64)>> = c
         .series
@@ -285,7 +291,6 @@ pub fn render_svg(c: &LineChart, sys: UnitSystem, id: &str) -> String {
     let yt = nice_ticks(y0, y1, 5);
     let px = |x: f64| scale(x, xt.lo, xt.hi, LEFT, WIDTH - RIGHT);
     let py = |y: f64| scale(y, yt.lo, yt.hi, HEIGHT - BOTTOM, TOP);
-    let bottom = HEIGHT - BOTTOM;
 
     push_grid(&mut out, &xt, &yt, true);
 
@@ -346,16 +351,6 @@ pub fn render_svg(c: &LineChart, sys: UnitSystem, id: &str) -> String {
         })
         .collect();
     push_markers(&mut out, &marks);
-    if !c.has_data() {
-        push_text(
-            &mut out,
-            0.5 * (LEFT + WIDTH - RIGHT),
-            0.5 * (TOP + bottom),
-            "middle",
-            "label empty",
-            "Not computed: see below",
-        );
-    }
     push_axis_titles(&mut out, &c.x.title(sys), &c.y.title(sys));
     out
 }

@@ -6,7 +6,7 @@
 //! 1-2-5 ticks. Each plot is `role="img"` with a `<title>` and a `<desc>`
 //! that summarises the data in words for screen readers and the printout.
 //!
-//! - [`line`]: line plot with several series, legend, an optional shaded
+//! - [`line`](mod@line): line plot with several series, legend, an optional shaded
 //!   area under one series, markers and limit lines (force–deflection with
 //!   the stored energy shaded; position, speed and force against time);
 //! - [`histogram`]: distribution of a figure from the tolerance study;
@@ -310,6 +310,23 @@ pub(crate) fn push_markers(out: &mut String, marks: &[(f64, Option<f64>, &str)])
         let ty = TOP + 16.0 + 19.0 * (i % 3) as f64;
         push_text(out, tx, ty, anchor, "label", label);
     }
+}
+
+/// Append the bare frame of a plot with no data and the words "Not
+/// computed" (the reasons are in the caption, where they can wrap).
+pub(crate) fn push_empty(out: &mut String) {
+    use frame::{BOTTOM, HEIGHT, LEFT, RIGHT, TOP, WIDTH};
+    let bottom = HEIGHT - BOTTOM;
+    push_line(out, LEFT, bottom, WIDTH - RIGHT, bottom, "axis");
+    push_line(out, LEFT, TOP, LEFT, bottom, "axis");
+    push_text(
+        out,
+        0.5 * (LEFT + WIDTH - RIGHT),
+        0.5 * (TOP + bottom),
+        "middle",
+        "label empty",
+        "Not computed: the reason is given below",
+    );
 }
 
 /// The standard viewBox of the line plots and histograms.
