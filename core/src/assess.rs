@@ -86,6 +86,8 @@ impl std::error::Error for ScenarioError {}
 enum Detail {
     /// Everything, with time histories for plots.
     Full,
+    /// Every figure, check and caution, without plots or sizing (batch runs).
+    Summary,
     /// Figures only (tolerance study samples).
     Numbers,
 }
@@ -100,7 +102,7 @@ const HISTORY_POINTS: usize = 150;
 fn solver(detail: Detail) -> SolverConfig {
     SolverConfig {
         rtol: match detail {
-            Detail::Full => 1e-8,
+            Detail::Full | Detail::Summary => 1e-8,
             // The study compares samples with each other and with limits;
             // 1e-7 is still far below the spread the tolerances produce.
             Detail::Numbers => 1e-7,
@@ -133,6 +135,20 @@ struct Outcome {
 /// Only a scenario of another format version; input errors are inside the
 /// report.
 pub fn assess(s: &Scenario) -> Result<Report, ScenarioError> {
+    assess_at(s, Detail::Full)
+}
+
+/// Assess without plots (time history, spring curve) and without buffer
+/// sizing: the same figures, checks and cautions, for a plant register of
+/// thousands of mechanisms.
+///
+/// # Errors
+/// As [`assess`].
+pub fn assess_summary(s: &Scenario) -> Result<Report, ScenarioError> {
+    assess_at(s, Detail::Summary)
+}
+
+fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
     if s.schema_version != SCHEMA_VERSION {
         return Err(ScenarioError::Version {
             found: s.schema_version,
@@ -141,7 +157,7 @@ pub fn assess(s: &Scenario) -> Result<Report, ScenarioError> {
     }
     let mut r = Reader::record();
     let model = resolve(s, &mut r);
-    let out = evaluate(&model, Detail::Full);
+    let out = evaluate(&model, detail);
     let mut figures = figures(&model, &out, &r.errors);
     let checks = checks(&model, &out, &figures);
     add_check_figures(&mut figures, &checks);
@@ -167,7 +183,11 @@ pub fn assess(s: &Scenario) -> Result<Report, ScenarioError> {
         verdict,
         counts,
         notes,
-        spring_curve: spring_curve(&model, &out),
+        spring_curve: if detail == Detail::Full {
+            spring_curve(&model, &out)
+        } else {
+            None
+        },
         history,
         contact_index,
         states: out.states.and_then(Result::ok),
@@ -836,7 +856,12 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
     // Release.
     let release_why: Vec<String> = match &out.release {
         Some(Ok(rel)) => {
-            f.extend(rel.figures());
+            // The stall position is a figure only when the part stalls.
+            f.extend(
+                rel.figures()
+                    .into_iter()
+                    .filter(|x| x.id != ids::RELEASE_STALL_POSITION || x.value.is_some()),
+            );
             if rel.reached_contact() {
                 Vec::new()
             } else {

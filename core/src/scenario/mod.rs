@@ -46,6 +46,9 @@ macro_rules! schema_attr {
         $(
             #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
             #[cfg_attr(feature = "schema", derive(schemars::JsonSchema))]
+            // A misspelt field in a hand-edited file is refused, never
+            // silently ignored.
+            #[serde(deny_unknown_fields)]
             $item
         )*
     };
@@ -53,7 +56,6 @@ macro_rules! schema_attr {
 
 schema_attr! {
     /// One assessment.
-    #[serde(deny_unknown_fields)]
     pub struct Scenario {
         /// Format version ([`SCHEMA_VERSION`]).
         pub schema_version: u32,
