@@ -174,6 +174,14 @@ class Recorder:
             print(f"summary:   {dev:.2e} ({self.tolerance(cid):.0e})  {cid}  {label}")
             if self.tolerance(cid) > 0 and dev > worst[0]:
                 worst = (dev, cid, label)
+        print("summary: largest relative deviation per kind of tolerance")
+        by_kind = {}
+        for cid, (dev, label) in self.max_dev.items():
+            kind = self.checks[cid]["tolerance"]["kind"]
+            if dev > by_kind.get(kind, (-1.0, "", ""))[0]:
+                by_kind[kind] = (dev, cid, label)
+        for kind, (dev, cid, label) in sorted(by_kind.items()):
+            print(f"summary:   {kind:20s} {dev:.2e} in {cid} ({label})")
         print(f"summary: largest relative deviation overall: {worst[0]:.2e} in {worst[1]} ({worst[2]})")
         print(f"tally: {self.passed} passed, {self.failed} failed")
         return 0 if self.failed == 0 else 1
