@@ -755,6 +755,18 @@ pub(super) static CHECKS: &[Check] = &[
         "contact::buffer::tests::orifice_damper_bottoms_with_the_exponential_residual_speed",
     ),
     core(
+        "core.buffer.damped_peak",
+        "Peak deceleration of a damped part driven into a linear buffer, reached before the standstill",
+        &["buffer.linear", "release.translating"],
+        r(DerivedClosedForm, MECHANICS, "damped SDOF: u = e^(−σt)·(A·cos ω_d t + B·sin ω_d t), peak where d³x/dt³ = 0", S::Derived),
+        Tolerance {
+            relative: 1e-9,
+            kind: ToleranceKind::OdeTolerance,
+            why: "integration at rtol 1e-12 (global error ~1e-11) against the closed form; the peak located by golden-section search on the order-4 dense derivative to ~1e-10",
+        },
+        "contact::buffer::tests::peak_deceleration_of_a_damped_part_is_found_between_steps",
+    ),
+    core(
         "core.buffer.door",
         "Spring-closed door keeps pressing its buffer: absorbed energy includes the spring's work during the stroke",
         &["buffer.linear", "release.rotating"],

@@ -21,6 +21,12 @@ def load(name):
         return json.load(f)["cases"]
 
 
+def mech_forces_at_contact(ref):
+    mech = ref["mech"]
+    f = mech.forces(mech.travel, 1.0, ref["engaged"])
+    return max((f.active - f.friction) / mech.radius, 0.0)
+
+
 def compare_release(rec, check, name, got, ref, radius):
     rec.decide(check, f"{name}: how the release ends", got["end"], ref["end"])
     rec.compare(check, f"{name}: time at the end", got["time"], ref["time"])
@@ -29,6 +35,11 @@ def compare_release(rec, check, name, got, ref, radius):
         rec.compare(check, f"{name}: hazard-point speed at contact", got["hazard_speed"], ref["speed"] * radius)
     else:
         rec.compare(check, f"{name}: stall position", got["position"], ref["position"])
+        # Statics at the closing point: (Q_spring + Q_drive + Q_gravity −
+        # Q_friction)/r with the spring acting if the part is still on it.
+        f = mech_forces_at_contact(ref)
+        rec.compare(check, f"{name}: static force at the closing point", got["closing_force_static"], f)
+        rec.compare(check, f"{name}: effective mass at the hazard point", got["hazard_mass"], ref["hazard_mass"])
     if ref["left_spring_at"] is not None or got["left_spring_at"] is not None:
         rec.compare(check, f"{name}: where the part leaves its spring", got["left_spring_at"], ref["left_spring_at"])
 
@@ -40,6 +51,8 @@ def run(h, rec):
         def one(case=case, name=name, check=check):
             mech = models.part(case["part"])
             ref = models.release(mech)
+            ref["mech"] = mech
+            ref["hazard_mass"] = mech.inertia(ref["engaged"]) / mech.radius**2
             tight = h.call("release", part=case["part"], **TIGHT)
             compare_release(rec, check, name, tight, ref, mech.radius)
             if ref["end"] == "contact" and tight["speed_energy_balance"] is not None:
