@@ -2,6 +2,9 @@
 //! three exit codes, file errors that name the file, line or field, the
 //! schema against the demos and against broken files, and a batch register.
 
+// Test helpers may panic: a panic here is a failed test, not a user-facing crash.
+#![allow(clippy::unwrap_used, clippy::expect_used)]
+
 use std::io::Write;
 use std::process::{Command, Output, Stdio};
 

@@ -151,7 +151,7 @@ pub fn template() -> String {
 /// invented; none describes a real machine.
 pub fn demo_register(rows: u64, seed: u64, out: &mut dyn Write) -> Result<()> {
     use rand_core::RngCore;
-    let mut rng = rand_pcg::Pcg32::new(seed, 0xa02b_dbf7_bb3c_0a7);
+    let mut rng = rand_pcg::Pcg32::new(seed, 0x0a02_bdbf_7bb3_c0a7);
     let mut uniform = |lo: f64, hi: f64| {
         let u = f64::from(rng.next_u32()) / f64::from(u32::MAX);
         lo + (hi - lo) * u
@@ -324,7 +324,7 @@ fn bad_row(line: u64, id: &str, message: String) -> OutRow {
 
 /// Where rows go.
 enum Sink<W: Write> {
-    Csv(csv::Writer<W>),
+    Csv(Box<csv::Writer<W>>),
     Json(W, bool),
 }
 
@@ -373,7 +373,7 @@ pub fn batch(file: &str, json_out: bool, output: Option<&str>) -> Result<u8> {
     let mut sink = if json_out {
         Sink::Json(out, true)
     } else {
-        Sink::Csv(csv::Writer::from_writer(out))
+        Sink::Csv(Box::new(csv::Writer::from_writer(out)))
     };
     let mut tally = Tally::default();
     let lower = file.to_ascii_lowercase();
@@ -388,7 +388,7 @@ pub fn batch(file: &str, json_out: bool, output: Option<&str>) -> Result<u8> {
         } else if row.checks_failed + row.checks_unknown > 0 {
             tally.failing += 1;
         }
-        if tally.rows % 5000 == 0 {
+        if tally.rows.is_multiple_of(5000) {
             let s = t0.elapsed().as_secs_f64();
             eprintln!(
                 "joulewise: {} rows ({:.0} rows/s)",
