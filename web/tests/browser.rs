@@ -1,6 +1,9 @@
 //! In-browser tests of the sheet (wasm-bindgen-test in headless Chromium):
 //! run with `cargo test --target wasm32-unknown-unknown -p joulewise-web`.
 
+// Test helpers may panic: a panic here is a failed test.
+#![allow(clippy::unwrap_used, clippy::expect_used)]
+
 use wasm_bindgen::JsCast;
 use wasm_bindgen_test::*;
 use web_sys::{Event, EventInit, HtmlInputElement};

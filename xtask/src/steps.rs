@@ -229,7 +229,15 @@ pub fn test_cmd(args: &[String]) -> Result<(), String> {
     );
     step(
         "cli",
-        Command::new("cargo").args(["test", "-p", "joulewise-core", "--features", "cli"]),
+        Command::new("cargo").args([
+            "test",
+            "-p",
+            "joulewise-core",
+            "--features",
+            "cli",
+            "--test",
+            "cli",
+        ]),
         true,
     );
     if wanted("reference") {

@@ -1,6 +1,6 @@
 //! From the scenario as typed to the SI models the physics modules take.
 //!
-//! [`resolve`] reads every input through a [`Reader`], so errors are
+//! [`resolve()`] reads every input through a [`Reader`], so errors are
 //! collected with their field paths and the pass can be replayed with
 //! perturbed SI values for the tolerance study. Each section resolves on its
 //! own: a bad spring input leaves the part, contact and limits usable.
