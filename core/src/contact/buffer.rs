@@ -455,7 +455,12 @@ impl ImpactOutcome {
 
     /// Effective mass `2·E/v₀²`, kg (the figure used to select absorbers).
     pub fn effective_mass(&self) -> f64 {
-        2.0 * self.energy_per_cycle / (self.contact_speed * self.contact_speed)
+        // The energy an absorber must take is what this buffer took plus
+        // what it left for the hard stop when its stroke ran out; using the
+        // absorbed energy alone would understate the duty of a bottoming
+        // buffer.
+        let e = self.energy_per_cycle + self.residual_energy();
+        2.0 * e / (self.contact_speed * self.contact_speed)
     }
 
     /// Total time (s) during the compression (contact to standstill or
@@ -639,7 +644,7 @@ impl ImpactOutcome {
         ));
         out.push(with(
             Figure::new(ids::IMPACT_EFFECTIVE_MASS, "Effective mass for absorber selection", Dim::Mass, self.effective_mass())
-                .method("m_e = 2·E/v₀²")
+                .method("m_e = 2·E/v₀², E = energy absorbed + energy left at bottoming")
                 .source("trade convention for absorber selection (common practice); reference-values §10 (D)"),
         ));
         out

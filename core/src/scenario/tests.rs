@@ -172,3 +172,26 @@ fn an_older_schema_version_in_memory_is_refused_not_misread() {
     s.schema_version = 99;
     assert!(assess(&s).is_err());
 }
+
+#[test]
+fn a_bottoming_buffer_accounts_for_every_joule() {
+    // Work–energy theorem over the stroke (basic mechanics): kinetic energy
+    // at contact plus the net drive work over the stroke used equals the
+    // energy absorbed plus the energy left for the hard stop; the trade's
+    // effective mass 2·E/v² uses that whole energy.
+    let r = assess(&demos::carriage_stop()).unwrap();
+    let ke = r.value(ids::RELEASE_KINETIC_ENERGY).unwrap();
+    let stroke = r.value(ids::IMPACT_STROKE_USED).unwrap();
+    let absorbed = r.value(ids::IMPACT_ENERGY_PER_CYCLE).unwrap();
+    let left = r.value(ids::IMPACT_RESIDUAL_ENERGY).unwrap();
+    assert!(left > 0.0, "the demo's elastomer bottoms");
+    // Drive 150 N less friction 0.02·85 kg·g_n, along the stroke.
+    let net = 150.0 - 0.02 * 85.0 * crate::G_N;
+    let expected = ke + net * stroke;
+    // Integration at rtol 1e-8 over two phases: 1e-6 relative is ample.
+    const REL_ODE_ENERGY: f64 = 1e-6;
+    assert!(((absorbed + left) - expected).abs() <= REL_ODE_ENERGY * expected);
+    let v = r.value(ids::RELEASE_CONTACT_SPEED).unwrap();
+    let me = r.value(ids::IMPACT_EFFECTIVE_MASS).unwrap();
+    assert!((me - 2.0 * expected / (v * v)).abs() <= REL_ODE_ENERGY * me);
+}
