@@ -20,6 +20,8 @@
 //! - [`tolerance`]: worst-case corners and seeded Monte Carlo.
 //! - [`limits`] and [`cautions`]: published limits with sources; cautions.
 //! - [`scenario`], [`report`], [`assess`]: the one `Scenario -> Report` API.
+//! - [`verification`]: how each figure was checked (data for the tests and
+//!   the "how these figures were checked" page).
 #![forbid(unsafe_code)]
 #![warn(missing_docs)]
 
@@ -39,6 +41,7 @@ pub mod sizing;
 pub mod spring;
 pub mod tolerance;
 pub mod units;
+pub mod verification;
 
 pub use error::{InputError, Problem};
 pub use figure::{Figure, Provenance, SourceStatus, Verdict};

@@ -102,7 +102,49 @@ fn number_before(line: &str, word: &str) -> u64 {
 }
 
 /// The names of the steps, in order.
-const STEPS: &[&str] = &["fmt", "clippy", "doc", "unit", "cli", "wasm", "dist", "e2e"];
+const STEPS: &[&str] = &[
+    "fmt",
+    "clippy",
+    "doc",
+    "unit",
+    "cli",
+    "reference",
+    "wasm",
+    "dist",
+    "e2e",
+];
+
+/// Build the reference harness (a binary of the tests crate) and return its
+/// path.
+fn build_harness() -> Result<std::path::PathBuf, String> {
+    run(Command::new("cargo")
+        .args(["build", "-p", "joulewise-tests", "--bin", "refharness"])
+        .current_dir(workspace_root()))?;
+    let target = std::env::var_os("CARGO_TARGET_DIR")
+        .map(std::path::PathBuf::from)
+        .unwrap_or_else(|| workspace_root().join("target"));
+    Ok(target.join("debug").join("refharness"))
+}
+
+/// What the `reference` step runs: the pinned Python environment and the
+/// harness, then `run.py`, whose last line is `tally: N passed, M failed`.
+/// When the environment or the harness cannot be made, the command names a
+/// program that does not exist, so the step fails with the reason printed.
+fn reference_command() -> Command {
+    match tools::ensure_reference_env().and_then(|py| Ok((py, build_harness()?))) {
+        Ok((python, harness)) => {
+            let mut c = Command::new(python);
+            c.arg("tests/reference/run.py")
+                .arg("--harness")
+                .arg(harness);
+            c
+        }
+        Err(e) => {
+            eprintln!("xtask: the reference suite cannot run: {e}");
+            Command::new("reference-suite-could-not-be-prepared")
+        }
+    }
+}
 
 /// `cargo xtask test`.
 pub fn test_cmd(args: &[String]) -> Result<(), String> {
@@ -187,9 +229,20 @@ pub fn test_cmd(args: &[String]) -> Result<(), String> {
     );
     step(
         "cli",
-        Command::new("cargo").args(["test", "-p", "joulewise-core", "--features", "cli"]),
+        Command::new("cargo").args([
+            "test",
+            "-p",
+            "joulewise-core",
+            "--features",
+            "cli",
+            "--test",
+            "cli",
+        ]),
         true,
     );
+    if wanted("reference") {
+        step("reference", &mut reference_command(), true);
+    }
     step(
         "wasm",
         Command::new("cargo")

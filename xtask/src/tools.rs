@@ -7,6 +7,8 @@
 //! - wasm-bindgen-cli: exactly the `wasm-bindgen` version in Cargo.lock.
 //! - wasm-opt: binaryen 132.0.0 from npm (package-lock.json).
 //! - Chromium and chromedriver: Debian packages.
+//! - Python reference libraries: `.venv` at the root, from PyPI, exactly the
+//!   versions in tests/reference/requirements.txt.
 
 use std::path::{Path, PathBuf};
 use std::process::Command;
@@ -176,6 +178,78 @@ pub fn ensure_test_tools() -> Result<(), String> {
         apt_install(&missing)?;
     }
     Ok(())
+}
+
+/// The Python of the reference suite: `.venv` at the workspace root, made
+/// with `python3 -m venv` when missing, holding exactly the versions pinned
+/// in tests/reference/requirements.txt (installed from PyPI only when one is
+/// missing or differs, so a second run installs nothing).
+pub fn ensure_reference_env() -> Result<PathBuf, String> {
+    let root = workspace_root();
+    let venv = root.join(".venv");
+    let python = venv.join("bin/python");
+    if !python.exists() {
+        if version_of("python3", "--version").is_none() {
+            apt_install(&["python3", "python3-venv"])?;
+        }
+        println!("xtask: creating the Python environment .venv (python3 -m venv)");
+        if run(Command::new("python3").args(["-m", "venv"]).arg(&venv)).is_err() {
+            // Debian's python3 needs python3-venv for ensurepip.
+            apt_install(&["python3-venv"])?;
+            run(Command::new("python3")
+                .args(["-m", "venv", "--clear"])
+                .arg(&venv))?;
+        }
+    }
+    let req = root.join("tests/reference/requirements.txt");
+    let text =
+        std::fs::read_to_string(&req).map_err(|e| format!("cannot read {}: {e}", req.display()))?;
+    let pinned: Vec<(String, String)> = text
+        .lines()
+        .map(|l| l.split('#').next().unwrap_or("").trim())
+        .filter_map(|l| l.split_once("=="))
+        .map(|(n, v)| (normalise(n), v.trim().to_string()))
+        .collect();
+    let out = Command::new(&python)
+        .args([
+            "-m",
+            "pip",
+            "list",
+            "--format=freeze",
+            "--disable-pip-version-check",
+        ])
+        .output()
+        .map_err(|e| format!("cannot run {}: {e}", python.display()))?;
+    let installed: Vec<(String, String)> = String::from_utf8_lossy(&out.stdout)
+        .lines()
+        .filter_map(|l| l.split_once("=="))
+        .map(|(n, v)| (normalise(n), v.trim().to_string()))
+        .collect();
+    let stale: Vec<String> = pinned
+        .iter()
+        .filter(|p| !installed.contains(p))
+        .map(|(n, v)| format!("{n}=={v}"))
+        .collect();
+    if stale.is_empty() {
+        println!(
+            "xtask: Python reference libraries as pinned ({} packages)",
+            pinned.len()
+        );
+        return Ok(python);
+    }
+    println!(
+        "xtask: installing pinned Python reference libraries: {}",
+        stale.join(" ")
+    );
+    run(Command::new(&python)
+        .args(["-m", "pip", "install", "--disable-pip-version-check", "-r"])
+        .arg(&req))?;
+    Ok(python)
+}
+
+/// A Python package name compared the way pip does: case and `-`/`_`/`.` fold.
+fn normalise(name: &str) -> String {
+    name.trim().to_ascii_lowercase().replace(['_', '.'], "-")
 }
 
 /// Install Debian packages (as root, or through sudo).

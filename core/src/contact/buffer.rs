@@ -455,7 +455,12 @@ impl ImpactOutcome {
 
     /// Effective mass `2·E/v₀²`, kg (the figure used to select absorbers).
     pub fn effective_mass(&self) -> f64 {
-        2.0 * self.energy_per_cycle / (self.contact_speed * self.contact_speed)
+        // The energy an absorber must take is what this buffer took plus
+        // what it left for the hard stop when its stroke ran out; using the
+        // absorbed energy alone would understate the duty of a bottoming
+        // buffer.
+        let e = self.energy_per_cycle + self.residual_energy();
+        2.0 * e / (self.contact_speed * self.contact_speed)
     }
 
     /// Total time (s) during the compression (contact to standstill or
@@ -639,7 +644,7 @@ impl ImpactOutcome {
         ));
         out.push(with(
             Figure::new(ids::IMPACT_EFFECTIVE_MASS, "Effective mass for absorber selection", Dim::Mass, self.effective_mass())
-                .method("m_e = 2·E/v₀²")
+                .method("m_e = 2·E/v₀², E = energy absorbed + energy left at bottoming")
                 .source("trade convention for absorber selection (common practice); reference-values §10 (D)"),
         ));
         out
@@ -997,6 +1002,10 @@ fn stroke<C: Carrier>(
         peak_f = peak_f.max(step_peak(st, &force_at));
         peak_a = peak_a.max(step_peak(st, &decel_at));
     }
+    // A maximum close to a step boundary beats neither neighbouring step's
+    // midpoint test: search across the best boundary too.
+    peak_f = peak_f.max(boundary_peak(&compression, &force_at));
+    peak_a = peak_a.max(boundary_peak(&compression, &decel_at));
     if let Some(eta) = buffer.efficiency() {
         // Peak force by the efficiency convention; the deceleration with the
         // peak force in place of the mean one (conservative).
@@ -1088,29 +1097,73 @@ fn step_peak<F: Fn(&DenseStep<3>, f64) -> f64>(st: &DenseStep<3>, f: &F) -> f64 
     if !(fm > fa && fm > fb) {
         return fa.max(fb).max(fm);
     }
-    // Golden-section search on [a, b] for the interior maximum; 30
-    // iterations shrink the bracket by 0.618³⁰ ≈ 5e-7 of the step.
+    fm.max(golden_max(a, b, |t| f(st, t)))
+}
+
+/// Golden-section search for the maximum of `g` on `[a, b]` (a unimodal
+/// bracket; on a monotone one it closes on the higher end). 40 iterations
+/// shrink the bracket by 0.618⁴⁰ ≈ 4e-9: near a smooth maximum the value
+/// is then exact to rounding.
+fn golden_max(a: f64, b: f64, g: impl Fn(f64) -> f64) -> f64 {
     const INV_PHI: f64 = 0.618_033_988_749_894_9;
     let (mut lo, mut hi) = (a, b);
     let mut c = hi - INV_PHI * (hi - lo);
     let mut d = lo + INV_PHI * (hi - lo);
-    let (mut fc, mut fd) = (f(st, c), f(st, d));
-    for _ in 0..30 {
+    let (mut fc, mut fd) = (g(c), g(d));
+    for _ in 0..40 {
         if fc > fd {
             hi = d;
             d = c;
             fd = fc;
             c = hi - INV_PHI * (hi - lo);
-            fc = f(st, c);
+            fc = g(c);
         } else {
             lo = c;
             c = d;
             fc = fd;
             d = lo + INV_PHI * (hi - lo);
-            fd = f(st, d);
+            fd = g(d);
         }
     }
-    fm.max(fc).max(fd)
+    fc.max(fd)
+}
+
+/// Largest value of `f` around the step boundary where it is highest (the
+/// start of the first step and the end of the last count as boundaries): a
+/// golden-section search from the midpoint of the step before the boundary
+/// to the midpoint of the step after it. A smooth maximum just beside a
+/// boundary lies in that bracket, and neither step's own midpoint test sees
+/// it (e.g. the peak deceleration of a damped part, shortly before its
+/// standstill).
+fn boundary_peak<F: Fn(&DenseStep<3>, f64) -> f64>(steps: &[DenseStep<3>], f: &F) -> f64 {
+    let Some(first) = steps.first() else {
+        return f64::NEG_INFINITY;
+    };
+    // Boundary k lies between steps k − 1 and k.
+    let mut best = (f(first, first.t0), 0usize);
+    for (i, st) in steps.iter().enumerate() {
+        let v = f(st, st.t_stop);
+        if v > best.0 {
+            best = (v, i + 1);
+        }
+    }
+    let k = best.1;
+    let before = k.checked_sub(1).and_then(|i| steps.get(i));
+    let after = steps.get(k);
+    let mid = |st: &DenseStep<3>| 0.5 * (st.t0 + st.t_stop);
+    let (a, b) = match (before, after) {
+        (Some(p), Some(n)) => (mid(p), mid(n)),
+        (Some(p), None) => (mid(p), p.t_stop),
+        (None, Some(n)) => (n.t0, mid(n)),
+        (None, None) => return best.0,
+    };
+    let at = |t: f64| match (before, after) {
+        (Some(p), _) if t <= p.t_stop => f(p, t),
+        (_, Some(n)) => f(n, t),
+        (Some(p), None) => f(p, t),
+        (None, None) => f64::NEG_INFINITY,
+    };
+    best.0.max(golden_max(a, b, at))
 }
 
 fn sample_stroke(

@@ -148,7 +148,7 @@ pub enum ReleaseEnd {
 }
 
 /// One point of the time history.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, Copy, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct HistoryPoint {
     /// Time from release, s.
     pub time: f64,

@@ -183,6 +183,53 @@ impl<'a> Reader<'a> {
         si
     }
 
+    /// An input derived from others (e.g. a rate identified from field
+    /// measurements), entered into the study with its own tolerance. In a
+    /// replay pass it takes its value from the replayed slice like any input.
+    pub fn derived(
+        &mut self,
+        field: &str,
+        dim: Dim,
+        value: f64,
+        tol: Option<TolText>,
+        rule: Rule,
+    ) -> Option<f64> {
+        if let Mode::Replay(values) = self.mode {
+            let v = values.get(self.cursor).copied();
+            self.cursor += 1;
+            return v.and_then(|v| rule.apply(field, v).ok());
+        }
+        let path = self.path(field);
+        let checked = rule.apply(&path, value);
+        let si = match checked {
+            Ok(v) => Some(v),
+            Err(e) => {
+                self.errors.push(e);
+                None
+            }
+        };
+        self.records.push(InputRecord {
+            path,
+            dim,
+            text: String::new(),
+            si,
+            tol,
+            spread: Spread::Normal,
+            rule,
+        });
+        si
+    }
+
+    /// The tolerance of the input read last, removed from the tolerance
+    /// study: for an input whose tolerance is a measurement uncertainty that
+    /// the model propagates itself (field identification).
+    pub fn take_tolerance(&mut self) -> Option<TolText> {
+        match self.mode {
+            Mode::Replay(_) => None,
+            Mode::Record => self.records.last_mut().and_then(|r| r.tol.take()),
+        }
+    }
+
     /// Read an optional numeric input: blank text means `None` without error.
     pub fn opt(
         &mut self,

@@ -25,6 +25,7 @@ pub enum Spread {
 /// A numeric input: text as typed, SI value, optional tolerance.
 #[derive(Debug, Clone, Default, PartialEq, Serialize, Deserialize)]
 #[cfg_attr(feature = "schema", derive(schemars::JsonSchema))]
+#[serde(deny_unknown_fields)]
 pub struct Value {
     /// Exactly what the user typed: a number, optionally with a unit.
     pub text: String,

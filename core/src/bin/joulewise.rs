@@ -1,2 +1,0 @@
-//! The command-line front end (being written).
-fn main() {}

@@ -1,0 +1,197 @@
+//! Tests of the scenario format and of `assess` on whole scenarios: round
+//! trips lose nothing, file errors name their field, one bad input hides only
+//! the figures that depend on it, and every demo assesses cleanly.
+
+use super::*;
+use crate::assess::{assess, assess_with_study};
+use crate::figure::ids;
+
+fn all_demos() -> Vec<(String, Scenario)> {
+    demos::all()
+        .into_iter()
+        .map(|d| (d.key.to_string(), (d.build)()))
+        .collect()
+}
+
+#[test]
+fn every_demo_assesses_without_input_errors_and_without_nan() {
+    for (key, s) in all_demos() {
+        let r = assess(&s).unwrap();
+        assert!(r.errors.is_empty(), "{key}: {:?}", r.errors);
+        for f in &r.figures {
+            if let Some(v) = f.value {
+                assert!(v.is_finite(), "{key}: {} = {v}", f.id);
+            } else {
+                assert!(
+                    !f.missing.is_empty(),
+                    "{key}: {} missing without a reason",
+                    f.id
+                );
+            }
+        }
+        for c in &r.checks {
+            for x in [c.value, c.limit, c.margin_ratio, c.margin_difference]
+                .into_iter()
+                .flatten()
+            {
+                assert!(x.is_finite(), "{key}: check {} has {x}", c.id);
+            }
+        }
+        assert!(
+            !r.cautions.is_empty(),
+            "{key}: the general cautions always apply"
+        );
+        assert_eq!(r.scenario_hash.len(), 64);
+    }
+}
+
+#[test]
+fn json_round_trip_loses_nothing_the_user_typed() {
+    for (key, s) in all_demos() {
+        let text = s.to_json();
+        let back = Scenario::from_json(&text).unwrap_or_else(|e| panic!("{key}: {e}"));
+        // `to_json` fills the informative SI values; everything else is equal.
+        let mut a = s.clone();
+        let mut b = back.clone();
+        resolve::visit_values(&mut a, &mut |_, v| v.si = None);
+        resolve::visit_values(&mut b, &mut |_, v| v.si = None);
+        assert_eq!(a, b, "{key}");
+        // And a second trip is byte-identical.
+        assert_eq!(back.to_json(), text, "{key}");
+    }
+}
+
+#[test]
+fn to_json_records_the_si_value_beside_the_text() {
+    let s = demos::carriage_stop();
+    let v: serde_json::Value = serde_json::from_str(&s.to_json()).unwrap();
+    assert_eq!(v["part"]["mass"]["text"], "85 kg");
+    assert_eq!(v["part"]["mass"]["si"], 85.0);
+    // 1.2 m typed, 1.2 m in SI.
+    assert_eq!(v["part"]["travel"]["si"], 1.2);
+    // 12 kN → 12 000 N.
+    assert_eq!(v["contact"]["law"]["force_at_stroke"]["si"], 12000.0);
+}
+
+#[test]
+fn file_errors_name_the_field_path() {
+    let mut v: serde_json::Value = serde_json::from_str(&demos::guard_door().to_json()).unwrap();
+    v["part"]["travel"] = serde_json::json!(86);
+    let e = Scenario::from_json(&v.to_string()).unwrap_err();
+    assert_eq!(e.path, "part.travel", "{e}");
+    let e = Scenario::from_json("{\"schema_version\": 1").unwrap_err();
+    assert!(e.message.contains("line 1"), "{e}");
+    let e = Scenario::from_json("{\"schema_version\": 1, \"bogus\": 2}").unwrap_err();
+    assert!(e.message.contains("bogus"), "{e}");
+}
+
+#[test]
+fn a_bad_contact_input_keeps_the_release_figures() {
+    let mut s = demos::carriage_stop();
+    if let ContactInput::Buffer(b) = &mut s.contact {
+        if let BufferLawInput::PowerLaw { stroke, .. } = &mut b.law {
+            *stroke = Value::new("40 kg");
+        }
+    }
+    let r = assess(&s).unwrap();
+    assert_eq!(r.errors.len(), 1);
+    assert_eq!(r.errors[0].field, "contact.law.stroke");
+    assert!(r.errors[0].message().contains("length"), "{}", r.errors[0]);
+    assert!(r.value(ids::RELEASE_CONTACT_SPEED).is_some());
+    let peak = r.figure(ids::IMPACT_PEAK_FORCE).unwrap();
+    assert_eq!(peak.value, None);
+    assert!(
+        peak.missing
+            .iter()
+            .any(|m| m.contains("contact.law.stroke")),
+        "{:?}",
+        peak.missing
+    );
+}
+
+#[test]
+fn a_bad_spring_input_names_itself_in_the_missing_figures() {
+    let mut s = demos::ejector();
+    if let Some(SpringInput {
+        model: SpringModelInput::Linear { rate, .. },
+        ..
+    }) = &mut s.spring
+    {
+        *rate = Value::new("-8 N/mm");
+    }
+    let r = assess(&s).unwrap();
+    assert_eq!(r.errors[0].field, "spring.model.rate");
+    let e = r.figure(ids::ENERGY_STORED_LATCHED).unwrap();
+    assert!(e.value.is_none());
+    assert!(
+        e.missing.iter().any(|m| m.contains("spring.model.rate")),
+        "{:?}",
+        e.missing
+    );
+    // The text typed is kept as typed in the report's input list.
+    assert!(r
+        .inputs
+        .iter()
+        .any(|i| i.path == "spring.model.rate" && i.text == "-8 N/mm"));
+}
+
+#[test]
+fn the_study_reproduces_exactly_with_the_same_seed() {
+    let s = demos::carriage_stop();
+    let mut s = s;
+    s.study.samples = 500;
+    let a = assess_with_study(&s).unwrap().study.unwrap();
+    let b = assess_with_study(&s).unwrap().study.unwrap();
+    assert_eq!(a, b);
+    s.study.seed += 1;
+    let c = assess_with_study(&s).unwrap().study.unwrap();
+    assert_ne!(a.monte_carlo, c.monte_carlo);
+    // Toleranced inputs: mass, drive force, buffer force.
+    assert_eq!(a.inputs.len(), 3, "{:?}", a.inputs);
+}
+
+#[test]
+fn residual_energy_of_the_brake_is_what_lockout_must_release() {
+    // Hooke's law on the spring states: residual = ½·k·s_rest² with the
+    // spring still compressed 9.0 mm on its stop (9.6 mm latched − 0.6 mm
+    // travel). Exact for a linear characteristic (basic mechanics).
+    let r = assess(&demos::brake_springs()).unwrap();
+    let k = r.value(ids::SPRING_RATE).unwrap();
+    let residual = r.value(ids::ENERGY_RESIDUAL).unwrap();
+    let expected = 0.5 * k * 0.009 * 0.009;
+    assert!((residual - expected).abs() <= crate::test_tol::REL_EXACT * 1e3 * expected);
+    assert!(r
+        .cautions
+        .iter()
+        .any(|c| c.caution.id == crate::cautions::CautionId::LockOutStoredEnergy));
+}
+
+#[test]
+fn an_older_schema_version_in_memory_is_refused_not_misread() {
+    let mut s = demos::guard_door();
+    s.schema_version = 99;
+    assert!(assess(&s).is_err());
+}
+
+#[test]
+fn a_bottoming_buffer_accounts_for_every_joule() {
+    // Work–energy theorem over the stroke (basic mechanics): kinetic energy
+    // at contact plus the net drive work over the stroke used equals the
+    // energy absorbed plus the energy left for the hard stop; the trade's
+    // effective mass 2·E/v² uses that whole energy.
+    let r = assess(&demos::carriage_stop()).unwrap();
+    let ke = r.value(ids::RELEASE_KINETIC_ENERGY).unwrap();
+    let stroke = r.value(ids::IMPACT_STROKE_USED).unwrap();
+    let absorbed = r.value(ids::IMPACT_ENERGY_PER_CYCLE).unwrap();
+    let left = r.value(ids::IMPACT_RESIDUAL_ENERGY).unwrap();
+    assert!(left > 0.0, "the demo's elastomer bottoms");
+    // Drive 150 N less friction 0.02·85 kg·g_n, along the stroke.
+    let net = 150.0 - 0.02 * 85.0 * crate::G_N;
+    let expected = ke + net * stroke;
+    // Integration at rtol 1e-8 over two phases: 1e-6 relative is ample.
+    const REL_ODE_ENERGY: f64 = 1e-6;
+    assert!(((absorbed + left) - expected).abs() <= REL_ODE_ENERGY * expected);
+    let v = r.value(ids::RELEASE_CONTACT_SPEED).unwrap();
+    let me = r.value(ids::IMPACT_EFFECTIVE_MASS).unwrap();
+    assert!((me - 2.0 * expected / (v * v)).abs() <= REL_ODE_ENERGY * me);
+}

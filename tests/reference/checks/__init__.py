@@ -1,0 +1,1 @@
+"""Check modules of the reference suite; each has `run(harness, recorder)`."""
