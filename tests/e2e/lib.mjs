@@ -2,6 +2,7 @@
 // headless through playwright-core with a fresh profile, records every
 // request (no request may leave the page's origin), and tallies results.
 import { chromium } from 'playwright-core';
+import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -91,12 +92,76 @@ export async function typeInto(locator, text) {
 /** Open the sheet and wait until the WebAssembly app has mounted. */
 export async function openSheet(page) {
   await page.goto(BASE_URL);
-  await page.locator('#fig-energy-stored_latched .figure-value').waitFor({ timeout: 20000 });
+  await page.locator('#overall .verdict').waitFor({ timeout: 20000 });
+  await settled(page);
+}
+
+/** Wait until the report has caught up with the inputs (no pending change). */
+export async function settled(page) {
+  await page.locator('main[data-pending="false"]').waitFor({ timeout: 10000 });
+}
+
+/** Start from demo `key` (or `blank`) with the picker. */
+export async function loadDemo(page, key) {
+  await page.locator('#demo-pick').selectOption(key);
+  await page.locator('#demo-load').click();
+  await settled(page);
 }
 
 /** Text of the value line of figure card `id` (`fig-…` element id). */
 export async function figureText(page, id) {
   return (await page.locator(`#${id} .figure-value`).textContent()).trim();
+}
+
+/** Wait until figure card `id` shows `text`. */
+export async function waitFigure(page, id, text) {
+  await page.waitForFunction(([i, t]) =>
+    document.querySelector(`#${i} .figure-value`)?.textContent.trim() === t, [id, text], { timeout: 10000 });
+}
+
+/** Every figure card on the assessment view: [{ id, label, value }]. */
+export async function pageFigures(page) {
+  return page.evaluate(() => [...document.querySelectorAll('#view-assessment .figure')].map((el) => ({
+    id: el.id,
+    label: el.querySelector('.figure-label').textContent.trim(),
+    value: el.querySelector('.figure-value').textContent.trim(),
+  })));
+}
+
+/** Element id of the control for input `path` (as the sheet names it). */
+export function fieldId(path) {
+  return `#f-${path.replaceAll('.', '-')}`;
+}
+
+/**
+ * Run the command-line program (built from this workspace) and return
+ * stdout. Its exit code says the verdict (0 within limits, 1 a limit
+ * exceeded, 2 cannot assess), so only a missing output is an error here.
+ */
+export function cli(args, input) {
+  const r = spawnSync('cargo', ['run', '-q', '-p', 'joulewise-core', '--features', 'cli', '--bin', 'joulewise', '--', ...args],
+    { input, encoding: 'utf8', maxBuffer: 64 << 20 });
+  if (r.error || r.status === null || r.status > 2 || !r.stdout) {
+    throw new Error(`joulewise ${args.join(' ')} failed (${r.status}): ${r.stderr}`);
+  }
+  return r.stdout;
+}
+
+/**
+ * The figures the command-line program prints for demo `key` in `units`
+ * (`si` or `us`): [{ id, label, value }] with the value formatted by the
+ * same core function as the sheet, `—` when missing.
+ */
+export function cliFigures(key, units = 'si') {
+  const scenario = cli(['demo', key]);
+  const report = JSON.parse(cli(['assess', '-', '--format', 'json'], scenario));
+  const text = cli(['assess', '-', '--format', 'text', '--units', units], scenario).split('\n');
+  const start = text.indexOf('Figures') + 1;
+  return report.figures.map((f, i) => {
+    const line = text[start + i];
+    const rest = line.slice(2 + Math.max(40, [...f.label].length) + 1);
+    return { id: f.id, label: f.label, value: rest.trimStart().split('   ')[0].trim() };
+  });
 }
 
 /**

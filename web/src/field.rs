@@ -148,12 +148,22 @@ pub fn QuantityField(
     /// Offer the unit chooser (default on).
     #[prop(default = true)]
     unit_choice: bool,
+    /// Show the tolerance row even when no tolerance is entered (a field
+    /// with a tolerance always shows it).
+    #[prop(optional, into)]
+    show_tol: MaybeProp<bool>,
 ) -> impl IntoView {
     let sys = DisplaySystem::expect();
     let input_ref = NodeRef::<html::Input>::new();
 
+    // Blank text is the core's to judge (blank is fine for an optional
+    // input, "a value is required" for a required one).
     let parse_error = Memo::new(move |_| {
-        units::parse_quantity(&text.get(), dim, unit)
+        let t = text.get();
+        if t.trim().is_empty() {
+            return None;
+        }
+        units::parse_quantity(&t, dim, unit)
             .err()
             .map(|e| e.message(dim))
     });
@@ -241,7 +251,11 @@ pub fn QuantityField(
         }
     });
 
-    let tol_row = tol.map(|tol| tolerance_row(&id, &label, dim, unit, tol, spread));
+    let tol_row = tol.map(|tol| {
+        let visible =
+            Signal::derive(move || show_tol.get().unwrap_or(false) || !tol.get().trim().is_empty());
+        tolerance_row(&id, &label, dim, unit, tol, spread, visible)
+    });
     let initial = text.get_untracked();
 
     view! {
@@ -280,6 +294,7 @@ fn tolerance_row(
     unit: &'static str,
     tol: Binding<String>,
     spread: Option<Binding<Spread>>,
+    visible: Signal<bool>,
 ) -> impl IntoView {
     let tol_id = format!("{id}-tol");
     let err_id = format!("{id}-tol-error");
@@ -294,7 +309,7 @@ fn tolerance_row(
             })
         };
         view! {
-            <span class="tol-pair">
+            <span class="tol-pair" hidden=move || tol.get().trim().is_empty()>
                 <label for=spread_id.clone()>"spread"</label>
                 <select id=spread_id aria-label=format!("spread of the tolerance of {label}") on:change=pick>
                     <option value="uniform" prop:selected=move || spread.get() == Spread::Uniform>
@@ -324,7 +339,7 @@ fn tolerance_row(
     });
     let initial = tol.get_untracked();
     view! {
-        <div class="tol" data-invalid=invalid>
+        <div class="tol" data-invalid=invalid hidden=move || !visible.get()>
             <span class="tol-pair">
             <label for=tol_id.clone()>"± tolerance"</label>
             <input

@@ -8,8 +8,11 @@
 //! figure id, so an open disclosure stays open while the user types; the
 //! texts inside are markup from [`figure_value_html`] and [`figure_how_html`].
 
+use crate::cautions_panel::caution_dom_id;
 use crate::html::{push_el, push_esc, push_list};
+use crate::labels::{field_dom_id, label_of};
 use crate::system::DisplaySystem;
+use joulewise_core::cautions::AppliedCaution;
 use joulewise_core::figure::Figure;
 use joulewise_core::units::{Dim, UnitSystem};
 use leptos::prelude::*;
@@ -29,6 +32,46 @@ pub fn missing_text(reasons: &[String]) -> String {
     }
 }
 
+/// The input path a reason starts with (`part.mass: a value is required`),
+/// if it names one.
+pub fn reason_path(reason: &str) -> Option<(&str, &str)> {
+    let (path, rest) = reason.split_once(": ")?;
+    let is_path = path.contains('.') || path.chars().all(|c| c.is_ascii_lowercase() || c == '_');
+    let plain = path
+        .chars()
+        .all(|c| c.is_ascii_lowercase() || c.is_ascii_digit() || c == '_' || c == '.');
+    (is_path && plain && !path.is_empty()).then_some((path, rest))
+}
+
+/// Append the reasons a figure is missing, each naming its input by label
+/// with a link to the field; never empty.
+pub fn push_missing_html(out: &mut String, reasons: &[String]) {
+    out.push_str(r#"<span class="why">Not computed"#);
+    if reasons.is_empty() {
+        out.push_str(" (no reason was recorded).</span>");
+        return;
+    }
+    out.push_str(": ");
+    for (i, r) in reasons.iter().enumerate() {
+        if i > 0 {
+            out.push_str("; ");
+        }
+        match reason_path(r) {
+            Some((path, rest)) => {
+                let base = path.strip_suffix(".tol").unwrap_or(path);
+                out.push_str(r##"<a href="#"##);
+                push_esc(out, &field_dom_id(base));
+                out.push_str(r#"">"#);
+                push_esc(out, &label_of(path));
+                out.push_str("</a>: ");
+                push_esc(out, rest);
+            }
+            None => push_esc(out, r),
+        }
+    }
+    out.push_str(".</span>");
+}
+
 /// The value line: `<span class="num">12.5</span> <span class="unit">mm</span>`
 /// in `system`, or why it is missing.
 pub fn figure_value_html(f: &Figure, system: UnitSystem) -> String {
@@ -38,11 +81,14 @@ pub fn figure_value_html(f: &Figure, system: UnitSystem) -> String {
             let shown = joulewise_core::units::format_quantity(v, f.dim, system);
             push_el(&mut out, "span", "num", &shown.number);
             if !shown.unit.is_empty() {
-                out.push(' ');
+                // As the core writes it: no space before the degree sign.
+                if shown.unit != "°" {
+                    out.push(' ');
+                }
                 push_el(&mut out, "span", "unit", shown.unit);
             }
         }
-        None => push_el(&mut out, "span", "why", &missing_text(&f.missing)),
+        None => push_missing_html(&mut out, &f.missing),
     }
     out
 }
@@ -71,12 +117,41 @@ pub fn figure_how_html(f: &Figure) -> String {
     out
 }
 
-/// One figure.
+/// Links to the cautions this figure brought up (the core names the figure
+/// by its label in what brought each caution up), or nothing.
+pub fn caution_links_html(label: &str, cautions: &[AppliedCaution]) -> String {
+    let mut out = String::new();
+    for a in cautions.iter().filter(|a| !a.caution.general) {
+        let mentions = a.because.iter().any(|b| {
+            b.strip_prefix(label)
+                .is_some_and(|rest| rest.starts_with(" is ") || rest.starts_with(" could not"))
+        });
+        if mentions {
+            if out.is_empty() {
+                out.push_str(r#"<span>Caution: </span><ul>"#);
+            }
+            out.push_str(r##"<li><a href="#"##);
+            out.push_str(&caution_dom_id(a.caution.id));
+            out.push_str(r#"">"#);
+            push_esc(&mut out, &a.caution.title);
+            out.push_str("</a></li>");
+        }
+    }
+    if !out.is_empty() {
+        out.push_str("</ul>");
+    }
+    out
+}
+
+/// One figure, with the cautions it brought up beside it.
 #[component]
 pub fn FigureCard(
     /// The figure (value in SI, with provenance).
     #[prop(into)]
     figure: Signal<Figure>,
+    /// The assessment's cautions (the card shows those this figure brought up).
+    #[prop(optional, into)]
+    cautions: Signal<Vec<AppliedCaution>>,
 ) -> impl IntoView {
     let sys = DisplaySystem::expect();
     let dom_id = figure.with_untracked(|f| figure_dom_id(&f.id));
@@ -86,10 +161,13 @@ pub fn FigureCard(
     let label = Signal::derive(move || figure.with(|f| f.label.clone()));
     let value = Signal::derive(move || figure.with(|f| figure_value_html(f, sys.get())));
     let how = Signal::derive(move || figure.with(figure_how_html));
+    let warn =
+        Memo::new(move |_| figure.with(|f| cautions.with(|c| caution_links_html(&f.label, c))));
     view! {
         <article class="figure" id=dom_id data-state=state>
             <h4 class="figure-label">{label}</h4>
             <p class="figure-value" inner_html=value></p>
+            <div class="figure-cautions" hidden=move || warn.with(String::is_empty) inner_html=warn></div>
             <details class="figure-how">
                 <summary>"How it is found"</summary>
                 <div inner_html=how></div>
@@ -108,6 +186,9 @@ pub fn FigureGroup(
     /// The figures, in display order.
     #[prop(into)]
     figures: Signal<Vec<Figure>>,
+    /// The assessment's cautions, shown beside the figures that bring them up.
+    #[prop(optional, into)]
+    cautions: Signal<Vec<AppliedCaution>>,
 ) -> impl IntoView {
     let ids = move || figures.with(|v| v.iter().map(|f| f.id.clone()).collect::<Vec<_>>());
     let card = move |id: String| {
@@ -119,7 +200,7 @@ pub fn FigureGroup(
                 })
             })
         });
-        view! { <FigureCard figure=f /> }
+        view! { <FigureCard figure=f cautions=cautions /> }
     };
     view! {
         <section class="figure-group" aria-label=title.clone()>

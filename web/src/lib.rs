@@ -1,46 +1,85 @@
 //! Joulewise in the browser: the assessment sheet. Components format what
 //! `joulewise_core` returns and compute nothing physical themselves.
 //!
+//! State: one `RwSignal<Scenario>` ([`state::Sheet`]) with every field a
+//! binding to one member of it (by the input's path, [`lens`]); the report
+//! is a memo of the scenario settled 150 ms after the last change; the
+//! tolerance study runs in slices ([`study`]). Views: the assessment
+//! ([`inputs`] and [`results`]), buffer sizing ([`sizing_view`]) and the
+//! tolerance study ([`study_view`]).
+//!
 //! Building blocks, one per file: [`field`] (quantity input with unit
-//! chooser and tolerance), [`figure_card`], [`check_row`], [`cautions_panel`],
-//! [`verdict`], [`plot`] (SVG line plots, histogram, margin bars), with the
-//! display unit system in [`system`] and two-way bindings in [`bind`].
-//! [`trial`] is a provisional sheet wired to the core models directly.
+//! chooser and tolerance), [`controls`] (the sheet's bound controls),
+//! [`figure_card`], [`check_row`], [`cautions_panel`], [`verdict`], [`plot`]
+//! (SVG line plots, histogram, margin bars), the display unit system in
+//! [`system`] and two-way bindings in [`bind`]. [`bench`](mod@bench) puts a small timing
+//! hook on `window` for the benchmark.
 #![forbid(unsafe_code)]
 
+pub mod bench;
 pub mod bind;
+pub mod blank;
 pub mod cautions_panel;
 pub mod check_row;
+pub mod controls;
 pub mod field;
 pub mod figure_card;
 pub mod html;
+pub mod inputs;
+pub mod labels;
+pub mod lens;
 pub mod plot;
+pub mod results;
+pub mod sizing_view;
+pub mod state;
+pub mod study;
+pub mod study_view;
 pub mod system;
-pub mod trial;
 pub mod verdict;
 
+use bind::Binding;
+use joulewise_core::scenario::demos;
 use joulewise_core::units::UnitSystem;
 use leptos::prelude::*;
+use state::{Sheet, View};
 use system::{DisplaySystem, SystemSwitch};
+
+/// Key of the demo the page opens with.
+pub const FIRST_DEMO: &str = "guard-door";
+
+/// Key of the blank assessment in the picker.
+pub const BLANK: &str = "blank";
 
 /// The page.
 #[component]
 pub fn App() -> impl IntoView {
-    DisplaySystem::provide(UnitSystem::Si);
+    let first = demos::by_key(FIRST_DEMO).unwrap_or_else(|| blank::scenario(UnitSystem::Si));
+    let sheet = Sheet::provide(first);
+    let units = Memo::new(move |_| sheet.scenario.with(|s| s.display_units));
+    DisplaySystem::provide_bound(Binding::new(
+        move || units.get(),
+        move |u| sheet.scenario.update(|s| s.display_units = u),
+    ));
+    bench::install();
     // A printout carries every figure's method, source and assumptions:
     // open the disclosures before the browser lays out the pages.
     let _ = window_event_listener(leptos::ev::beforeprint, |_| open_all_details());
+    let shown = move |v: View| move || sheet.view.get() != v;
     view! {
         <header class="top">
             <div class="brand">
                 <span class="brand-name">"Joulewise"</span>
                 <span class="brand-line">"Spring energy and end-of-travel impact"</span>
             </div>
+            {demo_picker()}
             <SystemSwitch />
         </header>
-        <main id="sheet">
-            <h1 class="sheet-title">"Assessment sheet"</h1>
-            <trial::TrialSheet />
+        {summary_bar()}
+        {view_nav()}
+        <main id="sheet" data-pending=move || sheet.pending.get().to_string()>
+            <div id="view-assessment" hidden=shown(View::Assessment)>{assessment_view()}</div>
+            <div id="view-sizing" hidden=shown(View::Sizing)>{sizing_view::sizing_view()}</div>
+            <div id="view-study" hidden=shown(View::Study)>{study_view::study_view()}</div>
         </main>
         <footer class="foot">
             <p>
@@ -50,6 +89,119 @@ pub fn App() -> impl IntoView {
             </p>
         </footer>
     }
+}
+
+/// The inputs beside the results.
+fn assessment_view() -> AnyView {
+    let sheet = Sheet::get();
+    let problems = Memo::new(move |_| sheet.report.with(|r| results::problems_html(r)));
+    view! {
+        <div class="sheet">
+            <form class="inputs" aria-label="Inputs" on:submit=|ev| ev.prevent_default()>
+                <section class="problems" id="problems" aria-live="polite"
+                    hidden=move || problems.with(String::is_empty) inner_html=problems></section>
+                {inputs::identity()}
+                {inputs::what_moves()}
+                {inputs::spring()}
+                {inputs::path()}
+                {inputs::contact()}
+                {inputs::limits()}
+                {inputs::tolerances()}
+            </form>
+            <div class="results">{results::results()}</div>
+        </div>
+    }
+    .into_any()
+}
+
+/// The verdict and a few key figures, kept in sight while scrolling.
+fn summary_bar() -> AnyView {
+    let sheet = Sheet::get();
+    let sys = DisplaySystem::expect();
+    let verdict = Memo::new(move |_| sheet.report.with(|r| results::verdict_html(r)));
+    let head = Memo::new(move |_| {
+        let s = sys.get();
+        sheet.report.with(|r| results::headline_html(r, s))
+    });
+    let title = Memo::new(move |_| sheet.scenario.with(|s| s.identity.title.clone()));
+    view! {
+        <section class="summary-bar" aria-label="Verdict">
+            <h1 class="sheet-title">
+                {move || {
+                    let t = title.get();
+                    if t.trim().is_empty() { "Untitled assessment".to_string() } else { t }
+                }}
+            </h1>
+            <p id="overall" aria-live="polite" inner_html=verdict></p>
+            <p class="headline" inner_html=head></p>
+            <p class="jump" hidden=move || sheet.view.get() != View::Assessment>
+                <a href="#figures-title">"Figures"</a>
+                <a href="#checks-title">"Checks"</a>
+                <a href="#plots-title">"Plots"</a>
+                <a href="#cautions-title">"Cautions"</a>
+            </p>
+        </section>
+    }
+    .into_any()
+}
+
+/// The three views as a row of buttons (the pressed one is shown).
+fn view_nav() -> AnyView {
+    let sheet = Sheet::get();
+    let button = move |v: View, id: &'static str, words: &'static str| {
+        view! {
+            <button
+                type="button"
+                id=id
+                class="view-button"
+                aria-pressed=move || (sheet.view.get() == v).to_string()
+                on:click=move |_| sheet.view.set(v)
+            >
+                {words}
+            </button>
+        }
+    };
+    view! {
+        <nav class="views" aria-label="Views">
+            {button(View::Assessment, "show-assessment", "Assessment")}
+            {button(View::Sizing, "show-sizing", "Buffer sizing")}
+            {button(View::Study, "show-study", "Tolerance study")}
+        </nav>
+    }
+    .into_any()
+}
+
+/// Start from a demo or a blank assessment (the display units stay as set).
+fn demo_picker() -> AnyView {
+    let sheet = Sheet::get();
+    let chosen = RwSignal::new(FIRST_DEMO.to_string());
+    let options = demos::all()
+        .into_iter()
+        .map(|d| {
+            let key = d.key;
+            view! {
+                <option value=key prop:selected=move || chosen.get() == key title=d.summary>{d.title}</option>
+            }
+        })
+        .collect_view();
+    let load = move |_| {
+        let key = chosen.get_untracked();
+        let units = sheet.scenario.with_untracked(|s| s.display_units);
+        let mut s = demos::by_key(&key).unwrap_or_else(|| blank::scenario(units));
+        s.display_units = units;
+        sheet.load(s);
+    };
+    view! {
+        <div class="demo-picker">
+            <label for="demo-pick">"Start from"</label>
+            <select id="demo-pick" on:change=move |ev| chosen.set(event_target_value(&ev))>
+                {options}
+                <option value=BLANK prop:selected=move || chosen.get() == BLANK>"New blank assessment"</option>
+            </select>
+            <button type="button" id="demo-load" on:click=load>"Load"</button>
+        </div>
+    }
+    .into_any()
 }
 
 /// Open every `<details>` in the page (for print).

@@ -2,17 +2,23 @@
 //! context newtype so every figure, check and plot follows one switch. The
 //! switch changes display only: what the user typed is never rewritten.
 
+use crate::bind::Binding;
 use joulewise_core::units::{self, Dim, Formatted, UnitSystem};
 use leptos::prelude::*;
 
 /// App-wide display unit system, provided once at the top of the page.
-#[derive(Debug, Clone, Copy)]
-pub struct DisplaySystem(pub RwSignal<UnitSystem>);
+#[derive(Clone, Copy)]
+pub struct DisplaySystem(pub Binding<UnitSystem>);
 
 impl DisplaySystem {
-    /// Create the setting and provide it to every component below.
+    /// Create a setting of its own and provide it to every component below.
     pub fn provide(initial: UnitSystem) -> Self {
-        let s = Self(RwSignal::new(initial));
+        Self::provide_bound(RwSignal::new(initial).into())
+    }
+
+    /// Provide a setting kept elsewhere (the scenario's display units).
+    pub fn provide_bound(b: Binding<UnitSystem>) -> Self {
+        let s = Self(b);
         provide_context(s);
         s
     }
@@ -20,12 +26,17 @@ impl DisplaySystem {
     /// The setting provided above, or SI when a component is mounted alone
     /// (a test): never a panic.
     pub fn expect() -> Self {
-        use_context::<Self>().unwrap_or_else(|| Self(RwSignal::new(UnitSystem::Si)))
+        use_context::<Self>().unwrap_or_else(|| Self(RwSignal::new(UnitSystem::Si).into()))
     }
 
     /// Current system (tracked).
     pub fn get(self) -> UnitSystem {
         self.0.get()
+    }
+
+    /// Change the system.
+    pub fn set(self, u: UnitSystem) {
+        self.0.set(u)
     }
 
     /// Format an SI value of kind `dim` in the current system (tracked).
@@ -52,7 +63,7 @@ pub fn SystemSwitch() -> impl IntoView {
                     id=id
                     name="display-system"
                     prop:checked=move || sys.get() == value
-                    on:change=move |_| sys.0.set(value)
+                    on:change=move |_| sys.set(value)
                 />
                 <span>{text}</span>
             </label>

@@ -9,16 +9,24 @@
 // below are not `#[test]` functions, so clippy's test allowance misses them.
 #![allow(clippy::unwrap_used, clippy::expect_used)]
 
+use joulewise_core::assess::{assess, Study};
 use joulewise_core::figure::{Figure, Provenance, SourceStatus, Verdict};
 use joulewise_core::limits::{Check, Subject};
+use joulewise_core::scenario::demos;
 use joulewise_core::units::{self, Dim, UnitSystem};
 use joulewise_web::bind::Binding;
+use joulewise_web::blank;
 use joulewise_web::check_row::{bar_geometry, check_html, utilisation_text};
 use joulewise_web::field::{split_number, unit_index, with_unit, QuantityField};
+use joulewise_web::figure_card::{caution_links_html, push_missing_html, reason_path};
 use joulewise_web::figure_card::{figure_how_html, figure_value_html};
 use joulewise_web::html::esc;
+use joulewise_web::labels::{field_dom_id, label_of};
+use joulewise_web::lens::{model_mut, value_mut};
 use joulewise_web::plot::{nice_ticks, tick_label};
-use joulewise_web::trial::{compute, TrialInputs};
+use joulewise_web::results::verdict_html;
+use joulewise_web::state::SETTLE_MS;
+use joulewise_web::study::run_in_slices;
 use leptos::prelude::*;
 use wasm_bindgen::JsCast;
 use wasm_bindgen_test::*;
@@ -296,59 +304,200 @@ fn ticks_are_one_two_five_steps_covering_the_data() {
     assert_eq!(tick_label(-0.0, &t), "0.00");
 }
 
-// ── The trial sheet end to end ─────────────────────────────────────────────
+// ── The scenario sheet ─────────────────────────────────────────────────────
 
 #[wasm_bindgen_test]
-fn trial_model_gives_figures_checks_and_cautions_and_names_bad_fields() {
-    let o = compute(&TrialInputs::default());
-    let stored = o
-        .spring
-        .iter()
-        .find(|f| f.id == "energy.stored_latched")
-        .and_then(|f| f.value)
-        .unwrap();
-    // ½·k·x² = ½ · 250 N/m · (0.18 m)² = 4.05 J (Hooke's law, exact).
-    const REL_EXACT: f64 = 1e-12;
-    assert!((stored - 4.05).abs() <= REL_EXACT * 4.05, "{stored}");
-    assert!(!o.checks.is_empty() && !o.cautions.is_empty());
-    assert!(
-        o.cautions.iter().any(|c| c.caution.general),
-        "general cautions always"
-    );
-    assert!(!o.history.is_empty() && !o.curve.is_empty() && o.histogram.is_some());
+fn every_input_the_core_reads_is_reachable_by_its_path_and_has_a_label() {
+    for d in demos::all() {
+        let mut s = (d.build)();
+        let report = assess(&s).unwrap();
+        assert!(!report.inputs.is_empty());
+        for line in &report.inputs {
+            if line.text.is_empty() {
+                continue; // a rate derived from field measurements
+            }
+            let v = value_mut(&mut s, &line.path, false).map(|v| v.text.clone());
+            assert_eq!(v, Some(line.text.clone()), "{}: {}", d.key, line.path);
+            assert_ne!(label_of(&line.path), line.path, "{}: no label", line.path);
+        }
+    }
+}
 
-    let bad = TrialInputs {
-        rate: "0.25 kg".into(),
-        ..TrialInputs::default()
-    };
-    let o = compute(&bad);
-    let f = o
-        .spring
-        .iter()
-        .find(|f| f.id == "energy.stored_latched")
-        .unwrap();
-    assert!(f.value.is_none());
-    assert!(
-        f.missing.iter().any(|m| m.starts_with("Spring rate:")),
-        "{:?}",
-        f.missing
+#[wasm_bindgen_test]
+fn a_spring_model_is_found_by_its_path_at_any_depth() {
+    let mut s = blank::scenario(UnitSystem::Si);
+    if let Some(sp) = s.spring.as_mut() {
+        sp.model = blank::model("series");
+    }
+    assert!(model_mut(&mut s, "spring.model.members.1").is_some());
+    assert!(model_mut(&mut s, "spring.model.members.2").is_none());
+    let v = value_mut(&mut s, "spring.model.members.1.rate", true).unwrap();
+    v.text = "7 N/mm".into();
+    assert_eq!(
+        value_mut(&mut s, "spring.model.members.1.rate", false).map(|v| v.text.clone()),
+        Some("7 N/mm".to_string())
     );
-    assert!(o.checks.iter().all(|c| c.verdict == Verdict::Unknown));
-
-    let refused = TrialInputs {
-        mass: "-2 kg".into(),
-        ..TrialInputs::default()
-    };
-    let o = compute(&refused);
-    assert!(
-        o.field_problems.iter().any(|(id, _)| id == "part-mass"),
-        "a model's refusal is shown at the field: {:?}",
-        o.field_problems
+    // An optional input is created only when written.
+    assert!(value_mut(&mut s, "part.drive_force", false).is_none());
+    assert!(value_mut(&mut s, "part.drive_force", true).is_some());
+    assert_eq!(
+        label_of("spring.model.members.1.rate"),
+        "member 2, spring rate"
+    );
+    assert_eq!(
+        field_dom_id("spring.model.members.1.rate"),
+        "f-spring-model-members-1-rate"
     );
 }
 
 #[wasm_bindgen_test]
-async fn app_mounts_and_the_energy_figure_follows_the_spring_rate() {
+fn every_variant_key_makes_that_variant() {
+    for k in [
+        "linear",
+        "helical",
+        "extension",
+        "torsion",
+        "gas",
+        "disc",
+        "table",
+        "measured",
+        "series",
+        "parallel",
+    ] {
+        assert_eq!(blank::model_kind(&blank::model(k)), k);
+    }
+    for k in ["translating", "rotating"] {
+        assert_eq!(blank::part_kind(&blank::part(k)), k);
+    }
+    for k in ["given", "plate", "rod", "disc", "point", "offset"] {
+        assert_eq!(blank::inertia_kind(&blank::inertia(k)), k);
+    }
+    for k in ["none", "buffer", "body"] {
+        assert_eq!(blank::contact_kind(&blank::contact(k)), k);
+    }
+    for k in [
+        "linear",
+        "power_law",
+        "spring",
+        "constant_force",
+        "absorber",
+        "orifice",
+    ] {
+        assert_eq!(blank::law_kind(&blank::law(k)), k);
+    }
+    for k in ["static", "dynamic", "two_point"] {
+        assert_eq!(blank::identify_kind(&blank::identify(k)), k);
+    }
+    for k in ["direct", "strut"] {
+        assert_eq!(blank::mount_kind(&blank::mount(k)), k);
+    }
+    for k in ["edge", "circle", "given"] {
+        assert_eq!(blank::area_kind(&blank::area(k)), k);
+    }
+    for k in ["none", "coefficient", "force"] {
+        assert_eq!(blank::friction_kind(&blank::friction(k)), k);
+    }
+}
+
+#[wasm_bindgen_test]
+fn a_missing_reason_names_the_field_by_label_and_links_to_it() {
+    let mut out = String::new();
+    push_missing_html(
+        &mut out,
+        &[
+            "part.mass: a value is required".into(),
+            "the part stops before contact".into(),
+        ],
+    );
+    assert!(
+        out.contains(r##"<a href="#f-part-mass">Moving mass</a>: a value is required"##),
+        "{out}"
+    );
+    assert!(out.contains("the part stops before contact"));
+    assert_eq!(
+        reason_path("part.mass.tol: bad"),
+        Some(("part.mass.tol", "bad"))
+    );
+    assert_eq!(reason_path("Spring rate: no value"), None);
+}
+
+#[wasm_bindgen_test]
+fn cautions_sit_beside_the_figure_that_brought_them_up() {
+    let r = assess(&demos::by_key("ejector").unwrap()).unwrap();
+    let stored = r.figure("energy.stored_latched").unwrap();
+    let html = caution_links_html(&stored.label, &r.cautions);
+    assert!(html.contains("#caution-lock-out-stored-energy"), "{html}");
+    let speed = r.figure("release.contact_speed").unwrap();
+    assert_eq!(caution_links_html(&speed.label, &r.cautions), "");
+}
+
+#[wasm_bindgen_test]
+fn no_check_reads_not_applicable_never_pass() {
+    let r = assess(&demos::by_key("brake-springs").unwrap()).unwrap();
+    assert!(r.checks.is_empty());
+    let html = verdict_html(&r);
+    assert!(
+        html.contains("not applicable") && html.contains("no limit set applies"),
+        "{html}"
+    );
+}
+
+#[wasm_bindgen_test]
+fn sizing_reasons_follow_the_display_units() {
+    use joulewise_core::sizing::{Infeasibility, LimitKind};
+    let i = Infeasibility::StrokeTooShort {
+        available: 0.0254,
+        required: 0.0508,
+        governing: LimitKind::PeakForce,
+    };
+    // 0.0254 m = 1 in exactly (NIST SP 811 (2008) App. B.8).
+    let us = joulewise_web::sizing_view::explain(&i, UnitSystem::Us);
+    assert!(us.contains("1 in") && us.contains("2 in"), "{us}");
+    let si = joulewise_web::sizing_view::explain(&i, UnitSystem::Si);
+    assert!(si.contains("25.4 mm"), "{si}");
+}
+
+#[wasm_bindgen_test]
+fn the_bench_hook_times_each_run() {
+    let ms = joulewise_web::bench::assess_demo("guard-door", 3);
+    assert_eq!(ms.len(), 3);
+    assert!(ms.iter().all(|t| t.is_finite() && *t >= 0.0));
+    assert!(joulewise_web::bench::assess_demo("nothing", 3).is_empty());
+}
+
+#[wasm_bindgen_test]
+async fn the_study_runs_in_slices_and_can_be_cancelled() {
+    let mut s = demos::by_key("ejector").unwrap();
+    s.study.monte_carlo = true;
+    s.study.samples = 400;
+    let r = assess(&s).unwrap();
+    let mut seen = Vec::new();
+    let out = run_in_slices(Study::new(&s, &r).unwrap(), |p| {
+        seen.push(p);
+        true
+    })
+    .await
+    .unwrap();
+    assert!(seen.len() >= 3, "several slices: {seen:?}");
+    assert!(seen.windows(2).all(|w| w[0] <= w[1]), "progress rises");
+    assert_eq!(seen.last().copied(), Some(1.0));
+    assert_eq!(out.monte_carlo.unwrap().samples_run, 400);
+    let cancelled = run_in_slices(Study::new(&s, &r).unwrap(), |_| false).await;
+    assert!(cancelled.is_none());
+}
+
+async fn sleep(ms: i32) {
+    let p = js_sys::Promise::new(&mut |resolve, _| {
+        web_sys::window()
+            .unwrap()
+            .set_timeout_with_callback_and_timeout_and_arguments_0(&resolve, ms)
+            .unwrap();
+    });
+    wasm_bindgen_futures::JsFuture::from(p).await.unwrap();
+}
+
+#[wasm_bindgen_test]
+async fn app_loads_a_demo_and_the_energy_follows_the_typed_rate() {
     let host = fresh_host();
     let _mounted = leptos::mount::mount_to(host, joulewise_web::App);
     leptos::task::tick().await;
@@ -360,11 +509,28 @@ async fn app_mounts_and_the_energy_figure_follows_the_spring_rate() {
             .text_content()
             .unwrap()
     };
-    assert_eq!(value(), "4.05 J");
-    let rate = input("spring-rate");
-    rate.set_value("0.5 N/mm");
-    fire(&rate, "input");
+    let pick: HtmlSelectElement = doc()
+        .get_element_by_id("demo-pick")
+        .unwrap()
+        .unchecked_into();
+    pick.set_value("ejector");
+    fire(&pick, "change");
+    let load: HtmlElement = doc()
+        .get_element_by_id("demo-load")
+        .unwrap()
+        .unchecked_into();
+    load.click();
     leptos::task::tick().await;
-    // ½ · 500 N/m · (0.18 m)² = 8.1 J (Hooke's law, exact).
-    assert_eq!(value(), "8.1 J");
+    // ½·k·x² = ½ · 8000 N/m · (0.03 m)² = 3.6 J (Hooke's law, common practice).
+    assert_eq!(value(), "3.6 J");
+    let rate = input("f-spring-model-rate");
+    assert_eq!(rate.value(), "8 N/mm");
+    rate.set_value("10 N/mm");
+    fire(&rate, "input");
+    // The report follows once the input has settled.
+    sleep(SETTLE_MS as i32 + 150).await;
+    leptos::task::tick().await;
+    // ½ · 10 000 N/m · (0.03 m)² = 4.5 J (Hooke's law, common practice).
+    assert_eq!(value(), "4.5 J");
+    assert_eq!(rate.value(), "10 N/mm", "typed text kept");
 }

@@ -215,6 +215,23 @@ pub fn test_cmd(args: &[String]) -> Result<(), String> {
         ]),
         false,
     );
+    // The web crate is built for the browser: lint it for that target too
+    // (code behind `cfg(target_arch = "wasm32")` and the browser tests).
+    step(
+        "clippy",
+        Command::new("cargo").args([
+            "clippy",
+            "-p",
+            "joulewise-web",
+            "--all-targets",
+            "--target",
+            "wasm32-unknown-unknown",
+            "--",
+            "-D",
+            "warnings",
+        ]),
+        false,
+    );
     step(
         "doc",
         Command::new("cargo")
