@@ -594,14 +594,8 @@ fn evaluate(model: &Model, detail: Detail) -> Outcome {
 
 fn describe_position(axis: Axis, q: f64) -> String {
     match axis {
-        Axis::Linear => format!(
-            "{}",
-            crate::units::format_quantity(q, Dim::Length, crate::units::UnitSystem::Si)
-        ),
-        Axis::Rotary => format!(
-            "{}",
-            crate::units::format_quantity(q, Dim::Angle, crate::units::UnitSystem::Si)
-        ),
+        Axis::Linear => crate::units::tag(q, Dim::Length),
+        Axis::Rotary => crate::units::tag(q, Dim::Angle),
     }
 }
 
@@ -951,11 +945,7 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
         .source("GUM first-order propagation (JCGM 100:2008, 5.1.2)");
         fig.assumptions.push(format!(
             "standard uncertainty {} ({} %)",
-            crate::units::format_quantity(
-                est.rate.standard_uncertainty,
-                Dim::LinearRate,
-                crate::units::UnitSystem::Si
-            ),
+            crate::units::tag(est.rate.standard_uncertainty, Dim::LinearRate),
             crate::units::format_sig(est.rate.relative() * 100.0, 3)
         ));
         fig.assumptions.extend(est.notes.iter().cloned());
