@@ -21,8 +21,11 @@ export const CHROMIUM_ARGS = [
 // Console messages that are not our errors.
 const HARMLESS = [/integrity attribute is currently ignored for preload/i];
 
-/** Launch a browser context with a fresh (or given) profile folder. */
-export async function launch({ viewport = { width: 800, height: 1280 }, userDataDir, offline = false } = {}) {
+/**
+ * Launch a browser context with a fresh (or given) profile folder. `origin`
+ * (default: BASE_URL's) is the one origin requests may go to.
+ */
+export async function launch({ viewport = { width: 800, height: 1280 }, userDataDir, offline = false, origin = new URL(BASE_URL).origin } = {}) {
   const dir = userDataDir ?? fs.mkdtempSync(path.join(os.tmpdir(), 'jw-profile-'));
   const context = await chromium.launchPersistentContext(dir, {
     executablePath: '/usr/bin/chromium',
@@ -31,7 +34,6 @@ export async function launch({ viewport = { width: 800, height: 1280 }, userData
     viewport,
     offline,
   });
-  const origin = new URL(BASE_URL).origin;
   const log = { requests: [], foreign: [], errors: [] };
   context.on('request', (req) => {
     const url = req.url();
