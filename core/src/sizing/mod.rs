@@ -281,7 +281,6 @@ impl LimitKind {
     }
 }
 
-/// A number to 4 significant figures, for messages.
 
 /// How a design stands against one limit.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
