@@ -281,7 +281,6 @@ impl LimitKind {
     }
 }
 
-
 /// How a design stands against one limit.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub struct LimitMargin {
