@@ -441,10 +441,12 @@ fn part_travel(p: &PartModel) -> f64 {
 
 fn evaluate(model: &Model, detail: Detail) -> Outcome {
     let mut out = Outcome::default();
-    let samples = if detail == Detail::Full {
-        HISTORY_POINTS
-    } else {
-        0
+    // The gate check reads the force history (time above the residual
+    // force), so a summary keeps it when that limit applies.
+    let samples = match detail {
+        Detail::Full => HISTORY_POINTS,
+        Detail::Summary if model.limits.gate.is_some() => HISTORY_POINTS,
+        _ => 0,
     };
 
     // Spring states: latched, released (at the contact position), extras.
@@ -1093,7 +1095,11 @@ fn checks(model: &Model, out: &Outcome, figures: &[Figure]) -> Vec<Check> {
             limits::gates::gate_checks(&limits::gates::GateForceCase {
                 gap_width,
                 dynamic_force: dynamic,
-                time_above_residual: out.impact.as_ref().map(|i| time_force_above(i, 150.0)),
+                time_above_residual: out
+                    .impact
+                    .as_ref()
+                    .filter(|i| !i.history.is_empty())
+                    .map(|i| time_force_above(i, 150.0)),
                 residual_force: residual,
                 end_force: None,
             }),
