@@ -441,10 +441,12 @@ fn part_travel(p: &PartModel) -> f64 {
 
 fn evaluate(model: &Model, detail: Detail) -> Outcome {
     let mut out = Outcome::default();
-    let samples = if detail == Detail::Full {
-        HISTORY_POINTS
-    } else {
-        0
+    // The gate check reads the force history (time above the residual
+    // force), so a summary keeps it when that limit applies.
+    let samples = match detail {
+        Detail::Full => HISTORY_POINTS,
+        Detail::Summary if model.limits.gate.is_some() => HISTORY_POINTS,
+        _ => 0,
     };
 
     // Spring states: latched, released (at the contact position), extras.
@@ -594,14 +596,8 @@ fn evaluate(model: &Model, detail: Detail) -> Outcome {
 
 fn describe_position(axis: Axis, q: f64) -> String {
     match axis {
-        Axis::Linear => format!(
-            "{}",
-            crate::units::format_quantity(q, Dim::Length, crate::units::UnitSystem::Si)
-        ),
-        Axis::Rotary => format!(
-            "{}",
-            crate::units::format_quantity(q, Dim::Angle, crate::units::UnitSystem::Si)
-        ),
+        Axis::Linear => crate::units::tag(q, Dim::Length),
+        Axis::Rotary => crate::units::tag(q, Dim::Angle),
     }
 }
 
@@ -951,11 +947,7 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
         .source("GUM first-order propagation (JCGM 100:2008, 5.1.2)");
         fig.assumptions.push(format!(
             "standard uncertainty {} ({} %)",
-            crate::units::format_quantity(
-                est.rate.standard_uncertainty,
-                Dim::LinearRate,
-                crate::units::UnitSystem::Si
-            ),
+            crate::units::tag(est.rate.standard_uncertainty, Dim::LinearRate),
             crate::units::format_sig(est.rate.relative() * 100.0, 3)
         ));
         fig.assumptions.extend(est.notes.iter().cloned());
@@ -1103,7 +1095,11 @@ fn checks(model: &Model, out: &Outcome, figures: &[Figure]) -> Vec<Check> {
             limits::gates::gate_checks(&limits::gates::GateForceCase {
                 gap_width,
                 dynamic_force: dynamic,
-                time_above_residual: out.impact.as_ref().map(|i| time_force_above(i, 150.0)),
+                time_above_residual: out
+                    .impact
+                    .as_ref()
+                    .filter(|i| !i.history.is_empty())
+                    .map(|i| time_force_above(i, 150.0)),
                 residual_force: residual,
                 end_force: None,
             }),

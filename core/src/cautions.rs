@@ -15,6 +15,7 @@
 
 use crate::figure::{ids, Figure, Provenance, SourceStatus, Verdict};
 use crate::limits::Check;
+use crate::units::tag;
 use serde::{Deserialize, Serialize};
 
 /// Stable identifier of a caution, in display order (most urgent first).
@@ -234,14 +235,6 @@ pub fn catalogue() -> Vec<Caution> {
     CautionId::ALL.iter().map(|&id| caution(id)).collect()
 }
 
-fn fmt_si(v: f64, unit: &str) -> String {
-    if v != 0.0 && (v.abs() < 1e-2 || v.abs() >= 1e6) {
-        format!("{v:.3e} {unit}")
-    } else {
-        format!("{v:.3} {unit}")
-    }
-}
-
 /// State of a figure for triggering: `Some(true)` value above zero,
 /// `Some(false)` zero or less, `None` present but missing; absent → not listed.
 fn figure_state<'a>(figures: &'a [Figure], id: &str) -> Option<(&'a Figure, Option<bool>)> {
@@ -265,8 +258,8 @@ pub fn cautions_for(figures: &[Figure], checks: &[Check]) -> Vec<AppliedCaution>
     let mut reasons: Vec<(CautionId, String)> = Vec::new();
     let mut add = |id: CautionId, why: String| reasons.push((id, why));
 
-    let describe = |f: &Figure, present: Option<bool>, unit: &str| match (present, f.value) {
-        (Some(true), Some(v)) => Some(format!("{} is {}", f.label, fmt_si(v, unit))),
+    let describe = |f: &Figure, present: Option<bool>| match (present, f.value) {
+        (Some(true), Some(v)) => Some(format!("{} is {}", f.label, tag(v, f.dim))),
         (None, _) => Some(format!("{} could not be computed", f.label)),
         _ => None,
     };
@@ -277,31 +270,25 @@ pub fn cautions_for(figures: &[Figure], checks: &[Check]) -> Vec<AppliedCaution>
         ids::ENERGY_RESIDUAL,
     ] {
         if let Some((f, state)) = figure_state(figures, id) {
-            if let Some(why) = describe(f, state, "J") {
+            if let Some(why) = describe(f, state) {
                 add(CautionId::LockOutStoredEnergy, why.clone());
                 add(CautionId::FractureFragments, why);
             }
         }
     }
-    for (id, unit) in [
-        (ids::ENERGY_RESIDUAL, "J"),
-        (ids::SPRING_FORCE_RELEASED, "N"),
-    ] {
+    for id in [ids::ENERGY_RESIDUAL, ids::SPRING_FORCE_RELEASED] {
         if let Some((f, state)) = figure_state(figures, id) {
-            if let Some(why) = describe(f, state, unit) {
+            if let Some(why) = describe(f, state) {
                 add(CautionId::NoDismantlingUnderPreload, why);
             }
         }
     }
-    for (id, unit) in [
-        (ids::IMPACT_RESIDUAL_ENERGY, "J"),
-        (ids::IMPACT_RESIDUAL_SPEED, "m/s"),
-    ] {
+    for id in [ids::IMPACT_RESIDUAL_ENERGY, ids::IMPACT_RESIDUAL_SPEED] {
         if let Some((f, Some(true))) = figure_state(figures, id) {
             if let Some(v) = f.value {
                 add(
                     CautionId::BufferBottoming,
-                    format!("{} is {}", f.label, fmt_si(v, unit)),
+                    format!("{} is {}", f.label, tag(v, f.dim)),
                 );
             }
         }
@@ -424,7 +411,10 @@ mod tests {
             .iter()
             .find(|c| c.caution.id == CautionId::LockOutStoredEnergy)
             .unwrap();
-        assert!(lock.because.iter().any(|b| b.contains("3.500 J")));
+        assert!(lock
+            .because
+            .iter()
+            .any(|b| crate::units::render(b, crate::units::UnitSystem::Si).contains("3.5 J")));
         // No residual energy and no residual force: no cage caution.
         let none = vec![
             Figure::new(ids::ENERGY_STORED_LATCHED, "Stored", Dim::Energy, 12.0),

@@ -22,8 +22,11 @@ export const CHROMIUM_ARGS = [
 // Console messages that are not our errors.
 const HARMLESS = [/integrity attribute is currently ignored for preload/i];
 
-/** Launch a browser context with a fresh (or given) profile folder. */
-export async function launch({ viewport = { width: 800, height: 1280 }, userDataDir, offline = false, colorScheme = 'light' } = {}) {
+/**
+ * Launch a browser context with a fresh (or given) profile folder. `origin`
+ * (default: BASE_URL's) is the one origin requests may go to.
+ */
+export async function launch({ viewport = { width: 800, height: 1280 }, userDataDir, offline = false, colorScheme = 'light', origin = new URL(BASE_URL).origin } = {}) {
   const dir = userDataDir ?? fs.mkdtempSync(path.join(os.tmpdir(), 'jw-profile-'));
   const context = await chromium.launchPersistentContext(dir, {
     executablePath: '/usr/bin/chromium',
@@ -33,7 +36,6 @@ export async function launch({ viewport = { width: 800, height: 1280 }, userData
     offline,
     colorScheme,
   });
-  const origin = new URL(BASE_URL).origin;
   const log = { requests: [], foreign: [], errors: [] };
   context.on('request', (req) => {
     const url = req.url();

@@ -4,11 +4,13 @@
 //!   http://127.0.0.1:8080.
 //! - `test`: install what the tests need and run every test; prints
 //!   `N passed, N failed`.
-//! - `dist`: write the deployable static folder `dist/`.
+//! - `dist`: write the deployable static folder `dist/` (offline-capable)
+//!   and the single self-contained file `dist-single/joulewise.html`.
 //!
 //! Only the package registries are used (crates.io, npm, Debian); no tool is
 //! ever downloaded from anywhere else.
 
+mod dist;
 mod serve;
 mod steps;
 mod tools;
@@ -17,7 +19,7 @@ use std::process::ExitCode;
 
 const USAGE: &str = "usage: cargo xtask <serve|dist|test> [options]
   serve [--port N] [--public-url /path/]   build the release app and serve it on 127.0.0.1
-  dist  [--public-url /path/]              write the deployable folder dist/
+  dist  [--public-url /path/]              write the deployable folder dist/ and dist-single/joulewise.html
   test  [--only NAME[,NAME...]] [--skip NAME[,NAME...]]
                                            run every test (names: fmt, clippy, unit, wasm, e2e)";
 

@@ -65,13 +65,15 @@ fn handle(mut stream: TcpStream, root: &Path, prefix: &str) -> std::io::Result<(
     if method != "GET" && method != "HEAD" {
         return respond(&mut stream, 405, "text/plain", b"method not allowed", false);
     }
-    if path == "/" && prefix != "/" {
+    // The app's URLs are relative: it must be opened at the folder, with `/`.
+    let bare_prefix = prefix.trim_end_matches('/');
+    if prefix != "/" && (path == "/" || path == bare_prefix) {
         let loc = format!(
             "HTTP/1.1 302 Found\r\nLocation: {prefix}\r\nContent-Length: 0\r\nConnection: close\r\n\r\n"
         );
         return stream.write_all(loc.as_bytes());
     }
-    let Some(rel) = path.strip_prefix(prefix.trim_end_matches('/')) else {
+    let Some(rel) = path.strip_prefix(bare_prefix) else {
         return respond(
             &mut stream,
             404,

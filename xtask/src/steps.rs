@@ -12,7 +12,8 @@ use std::sync::mpsc;
 use std::thread;
 use std::time::Instant;
 
-/// Build the release web app into `dist/` for the given public URL.
+/// Build the release web app into `dist/` for the given public URL, then
+/// make it work offline and write the single file (`crate::dist::finish`).
 pub fn build_dist(public_url: &str) -> Result<(), String> {
     let root = workspace_root();
     run(Command::new(tools::cargo_bin_dir().join("trunk"))
@@ -25,7 +26,8 @@ pub fn build_dist(public_url: &str) -> Result<(), String> {
             public_url,
         ])
         .env("PATH", tool_path())
-        .current_dir(&root))
+        .current_dir(&root))?;
+    crate::dist::finish(&root.join("dist"), public_url)
 }
 
 /// Tally of one step.

@@ -34,6 +34,7 @@
 
 use crate::error::{check, InputError};
 use crate::figure::{ids, Figure, Provenance, SourceStatus};
+use crate::units::tag;
 use crate::units::Dim;
 use serde::{Deserialize, Serialize};
 
@@ -499,9 +500,10 @@ impl TransientOutcome {
         let mut pad_note = Vec::new();
         if self.padded {
             pad_note.push(format!(
-                "padding in series with the body (k_eff = {:.4e} N/m); without it the peak force \
-                 would be {:.4e} N",
-                self.effective_stiffness, self.unpadded_peak_force
+                "padding in series with the body (k_eff = {}); without it the peak force \
+                 would be {}",
+                tag(self.effective_stiffness, Dim::LinearRate),
+                tag(self.unpadded_peak_force, Dim::Force)
             ));
             if self.pad_flat {
                 pad_note.push(
@@ -599,7 +601,9 @@ impl TransientOutcome {
                 });
                 if let (Some(a), Some(b)) = (by_force, by_pressure) {
                     f = f.assume(&format!(
-                        "force route {a:.4} m/s, pressure route {b:.4} m/s"
+                        "force route {}, pressure route {}",
+                        tag(*a, Dim::Speed),
+                        tag(*b, Dim::Speed)
                     ));
                 }
                 f

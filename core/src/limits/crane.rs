@@ -19,6 +19,7 @@
 use super::{input_ids, us_units, Check, Comparison, LimitEntry, LimitSet, LimitSetId, Subject};
 use crate::error::{check, InputError};
 use crate::figure::{ids, Provenance, SourceStatus};
+use crate::units::tag;
 use crate::units::Dim;
 use serde::{Deserialize, Serialize};
 
@@ -161,7 +162,8 @@ pub fn crane_bumper_checks(case: &CraneBumperCase) -> Result<Vec<Check>, InputEr
         cfr(decel_clause),
     )
     .note(&format!(
-        "Average deceleration {decel_words}: check speed {u:.4} m/s."
+        "Average deceleration {decel_words}: check speed {}.",
+        tag(u, Dim::Speed)
     ))
     .note(mass_note);
     let required = required_energy_capacity(case.travel, v, m);

@@ -34,6 +34,7 @@ use crate::ode::{
     self, Direction, EventSpec, OdeError, OdeSystem, SolverConfig, Stats, StopReason, Trajectory,
 };
 use crate::spring::Axis;
+use crate::units::tag;
 use crate::units::Dim;
 use std::fmt;
 
@@ -303,13 +304,15 @@ impl ReleaseOutcome {
             ),
             ReleaseEnd::Stall(s) => {
                 let note = format!(
-                    "the part stops {:.4} {} short of the contact point ({})",
-                    s.short_of_contact,
-                    if self.axis == Axis::Linear {
-                        "m"
-                    } else {
-                        "rad"
-                    },
+                    "the part stops {} short of the contact point ({})",
+                    tag(
+                        s.short_of_contact,
+                        if self.axis == Axis::Linear {
+                            Dim::Length
+                        } else {
+                            Dim::Angle
+                        }
+                    ),
                     s.cause.describe()
                 );
                 (
@@ -336,11 +339,17 @@ impl ReleaseOutcome {
                 )
             }
             ReleaseEnd::SpringEndOfStroke { position } => {
-                let note =
-                    format!(
-                    "the spring reaches the end of its range at {position:.4} {} from the latch, \
+                let note = format!(
+                    "the spring reaches the end of its range at {} from the latch, \
                      before contact: the part is stopped by the spring (solid or fully extended)",
-                    if self.axis == Axis::Linear { "m" } else { "rad" }
+                    tag(
+                        position,
+                        if self.axis == Axis::Linear {
+                            Dim::Length
+                        } else {
+                            Dim::Angle
+                        }
+                    )
                 );
                 (
                     Figure::missing(

@@ -17,6 +17,7 @@
 #![allow(clippy::large_enum_variant)]
 
 pub mod demos;
+pub mod fields;
 pub mod migrate;
 pub mod reader;
 pub mod resolve;

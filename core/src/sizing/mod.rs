@@ -49,7 +49,7 @@ mod numeric;
 
 use crate::error::{check, InputError};
 use crate::figure::{ids, Figure, Verdict};
-use crate::units::Dim;
+use crate::units::{tag, Dim};
 use crate::G_N;
 use law::{Bound, Duty, Law, Point};
 use serde::{Deserialize, Serialize};
@@ -262,7 +262,16 @@ impl LimitKind {
         }
     }
 
-    /// SI unit symbol of the limit's value.
+    /// Kind of quantity of the limit's value.
+    pub fn dim(self) -> Dim {
+        match self {
+            LimitKind::PeakForce => Dim::Force,
+            LimitKind::PeakDeceleration | LimitKind::MeanDeceleration => Dim::Acceleration,
+            LimitKind::Stroke => Dim::Length,
+        }
+    }
+
+    /// SI unit of the limit.
     pub fn unit(self) -> &'static str {
         match self {
             LimitKind::PeakForce => "N",
@@ -270,15 +279,6 @@ impl LimitKind {
             LimitKind::Stroke => "m",
         }
     }
-}
-
-/// A number to 4 significant figures, for messages.
-fn sig4(x: f64) -> String {
-    if x == 0.0 || !x.is_finite() {
-        return format!("{x}");
-    }
-    let digits = (3 - x.abs().log10().floor() as i32).max(0) as usize;
-    format!("{x:.digits$}")
 }
 
 /// How a design stands against one limit.
@@ -447,21 +447,20 @@ impl Infeasibility {
                 limit_value,
                 floor,
             } => format!(
-                "the {} limit {} {u} is at or below {} {u}, the least this buffer type can reach while \
+                "the {} limit {} is at or below {}, the least this buffer type can reach while \
                  stopping the part against the forces that act along its motion",
                 limit.label(),
-                sig4(limit_value),
-                sig4(floor),
-                u = limit.unit()
+                tag(limit_value, limit.dim()),
+                tag(floor, limit.dim()),
             ),
             Infeasibility::StrokeTooShort {
                 available,
                 required,
                 governing,
             } => format!(
-                "the available stroke {} m is shorter than the {} m the {} limit needs",
-                sig4(available),
-                sig4(required),
+                "the available stroke {} is shorter than the {} the {} limit needs",
+                tag(available, Dim::Length),
+                tag(required, Dim::Length),
                 governing.label()
             ),
             Infeasibility::NotSolved { limit } => {
@@ -810,8 +809,8 @@ impl SizingOutcome {
         let basics = "work–energy balance E_total = ½·m·v² + F_n·s (basic mechanics, derived)";
         let kind = format!("buffer type: {}", self.buffer.label());
         let fnet = format!(
-            "net propelling force F_n = drive + gravity − friction = {:.4e} N, constant over the stroke",
-            self.propelling_force
+            "net propelling force F_n = drive + gravity − friction = {}, constant over the stroke",
+            tag(self.propelling_force, Dim::Force)
         );
         let rigid = "rigid frame and part; buffer mass ignored";
         let mut out = Vec::new();
@@ -881,13 +880,15 @@ impl SizingOutcome {
                     .method("F = c·v²; c solved from the stroke")
                     .source(stroke_source)
                     .assume(&format!(
-                        "the damper hands the part to the end stop at {residual_speed:.4} m/s"
+                        "the damper hands the part to the end stop at {}",
+                        tag(residual_speed, Dim::Speed)
                     ));
                 if let Some(vt) = terminal_speed {
                     if vt >= TERMINAL_SPEED_CAUTION * residual_speed {
                         f = f.assume(&format!(
-                            "the drive alone would keep the part moving at {vt:.4} m/s against this damper, close to \
-                             the residual speed: stroke and time are sensitive to the drive force and the coefficient"
+                            "the drive alone would keep the part moving at {} against this damper, close to \
+                             the residual speed: stroke and time are sensitive to the drive force and the coefficient",
+                            tag(vt, Dim::Speed)
                         ));
                     }
                 }

@@ -312,9 +312,9 @@ fn force_limit_at_or_below_the_floor_is_reported() {
         },
     );
     let o = size_buffer(&inp, &BufferType::LinearSpring).unwrap();
-    assert!(reasons(&o)[0]
-        .explain()
-        .contains("900.0 N is at or below 1000 N"));
+    let why = reasons(&o)[0].explain();
+    assert!(crate::units::render(&why, crate::units::UnitSystem::Si)
+        .contains("900 N is at or below 1000 N"));
     assert_eq!(
         reasons(&o),
         &[Infeasibility::BelowFloor {

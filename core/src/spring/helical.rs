@@ -32,6 +32,7 @@ use super::material::{Material, MaterialProps};
 use super::{Axis, ForceLaw, Spring, StressAt, StressKind, Travel};
 use crate::error::{check, InputError};
 use crate::figure::SourceStatus;
+use crate::units::{tag, Dim};
 use serde::{Deserialize, Serialize};
 use std::f64::consts::PI;
 
@@ -293,8 +294,8 @@ impl HelicalSpring {
             return Err(InputError::invalid(
                 field,
                 format!(
-                    "the free length must exceed the solid length ({:.4} m by {solid_rule})",
-                    solid
+                    "the free length must exceed the solid length ({} by {solid_rule})",
+                    tag(solid, Dim::Length)
                 ),
             ));
         }
@@ -384,9 +385,9 @@ impl HelicalSpring {
             (
                 fraction * rm,
                 format!(
-                    "τ_perm = {fraction}·R_m with R_m = {:.0} N/mm² ({src}); fraction 0.5 is the \
+                    "τ_perm = {fraction}·R_m with R_m = {} ({src}); fraction 0.5 is the \
                      EN 13906-1 static value (from memory) unless entered",
-                    rm / 1e6
+                    tag(rm, Dim::Pressure)
                 ),
             )
         })
@@ -485,9 +486,9 @@ impl Spring for HelicalSpring {
         let uncorrected = tau / self.stress_factor();
         let perm = self.permissible_stress();
         let mut notes = vec![format!(
-            "uncorrected stress 8·F·D/(π·d³) = {:.1} N/mm²; EN 13906-1 checks static springs with \
+            "uncorrected stress 8·F·D/(π·d³) = {}; EN 13906-1 checks static springs with \
              the uncorrected value (from memory), so the ratio with the corrected stress is conservative",
-            uncorrected / 1e6
+            tag(uncorrected, Dim::Pressure)
         )];
         let (permissible, ratio, method_tail) = match &perm {
             Some((p, src)) => (Some(*p), Some(tau / p), src.clone()),
@@ -531,10 +532,10 @@ impl Spring for HelicalSpring {
                 if let Some(s) = b.buckling_deflection {
                     notes.push(format!(
                         "buckling: with seating coefficient ν = {} the spring buckles at a deflection \
-                         of {:.1} mm, before solid ({:.1} mm); guide it on a rod or in a tube",
+                         of {}, before solid ({}); guide it on a rod or in a tube",
                         b.seating_coefficient,
-                        s * 1e3,
-                        self.deflection_to_solid() * 1e3
+                        tag(s, Dim::Length),
+                        tag(self.deflection_to_solid(), Dim::Length)
                     ));
                 }
             }

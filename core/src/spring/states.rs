@@ -19,7 +19,7 @@
 use super::{Axis, ForceLaw, Spring, StressAt, StressKind, Travel};
 use crate::error::{check, InputError};
 use crate::figure::{ids, Figure};
-use crate::units::Dim;
+use crate::units::{tag, Dim};
 use serde::{Deserialize, Serialize};
 
 /// What a state means to the assessment.
@@ -228,7 +228,6 @@ impl StatesReport {
             Axis::Rotary => (Dim::Torque, Dim::TorsionalRate),
         };
         let source = self.source();
-        let unit = force_dim.si_symbol();
         let need = |role: &str| vec![format!("mark one state as {role}")];
         let latched = self.latched.and_then(|i| self.states.get(i));
         let released = self.released.and_then(|i| self.states.get(i));
@@ -276,8 +275,8 @@ impl StatesReport {
                 .source(&source)
                 .assume("energy given back if the stop were removed and the spring relaxed to free: block or release it before work")
                 .assume(&format!(
-                    "loading branch to reach the same deflection: {:.4} J",
-                    r.stored
+                    "loading branch to reach the same deflection: {}",
+                    tag(r.stored, Dim::Energy)
                 )),
             None => Figure::missing(ids::ENERGY_RESIDUAL, "Residual energy on the stop", Dim::Energy, need("released (part on its stop)")),
         });
@@ -292,8 +291,8 @@ impl StatesReport {
             .source(&source)
             .assume("loading branch: the largest force the latch must hold")
             .assume(&format!(
-                "unloading branch (force driving the release): {:.4} {unit}",
-                s.force_unloading
+                "unloading branch (force driving the release): {}",
+                tag(s.force_unloading, force_dim)
             )),
             None => Figure::missing(
                 ids::SPRING_FORCE_LATCHED,
@@ -313,8 +312,8 @@ impl StatesReport {
             .source(&source)
             .assume("unloading branch: the force with which the part arrives and rests on the stop")
             .assume(&format!(
-                "loading branch value: {:.4} {unit}",
-                s.force_loading
+                "loading branch value: {}",
+                tag(s.force_loading, force_dim)
             )),
             None => Figure::missing(
                 ids::SPRING_FORCE_RELEASED,

@@ -17,6 +17,7 @@ use super::material::{Material, MaterialProps};
 use super::{Axis, ForceLaw, Spring, StressAt, StressKind, Travel};
 use crate::error::{check, InputError};
 use crate::figure::SourceStatus;
+use crate::units::{tag, Dim};
 use serde::{Deserialize, Serialize};
 use std::f64::consts::PI;
 
@@ -215,8 +216,8 @@ impl Spring for TorsionSpring {
         .unwrap_or(DEFAULT_PERMISSIBLE_FRACTION);
         let perm = m.tensile_strength(*d);
         let mut notes = vec![format!(
-            "textbook inner-fibre factor K_i gives {:.1} N/mm² (Bhandari Ex. 10.21)",
-            textbook / 1e6
+            "textbook inner-fibre factor K_i gives {} (Bhandari Ex. 10.21)",
+            tag(textbook, Dim::Pressure)
         )];
         if perm.is_none() {
             notes.push("no tensile strength for this wire: enter R_m from the certificate".into());

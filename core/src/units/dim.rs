@@ -109,6 +109,39 @@ impl Dim {
         }
     }
 
+    /// Stable key, the serde name (`linear_rate`).
+    pub fn key(self) -> &'static str {
+        match self {
+            Dim::Ratio => "ratio",
+            Dim::Length => "length",
+            Dim::Area => "area",
+            Dim::Force => "force",
+            Dim::Mass => "mass",
+            Dim::Energy => "energy",
+            Dim::LinearRate => "linear_rate",
+            Dim::TorsionalRate => "torsional_rate",
+            Dim::Speed => "speed",
+            Dim::AngularSpeed => "angular_speed",
+            Dim::Acceleration => "acceleration",
+            Dim::Pressure => "pressure",
+            Dim::Angle => "angle",
+            Dim::Torque => "torque",
+            Dim::Inertia => "inertia",
+            Dim::Time => "time",
+            Dim::Frequency => "frequency",
+            Dim::Power => "power",
+            Dim::LinearDamping => "linear_damping",
+            Dim::QuadraticDamping => "quadratic_damping",
+            Dim::Density => "density",
+            Dim::Probability => "probability",
+        }
+    }
+
+    /// The kind with this key.
+    pub fn from_key(key: &str) -> Option<Dim> {
+        Dim::ALL.into_iter().find(|d| d.key() == key)
+    }
+
     /// The kind in words with an article, for messages: `a force`.
     pub fn noun(self) -> &'static str {
         match self {
@@ -134,6 +167,19 @@ impl Dim {
             Dim::QuadraticDamping => "an orifice damping coefficient",
             Dim::Density => "a density",
             Dim::Probability => "a probability",
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::Dim;
+
+    #[test]
+    fn keys_are_the_serde_names() {
+        for d in Dim::ALL {
+            let json = serde_json::to_string(&d).unwrap();
+            assert_eq!(json, format!("\"{}\"", d.key()));
         }
     }
 }

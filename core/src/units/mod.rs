@@ -13,6 +13,7 @@ mod dim;
 mod format;
 mod parse;
 mod table;
+mod tagged;
 
 pub use dim::Dim;
 pub use format::{
@@ -23,6 +24,7 @@ pub use parse::{examples, parse_quantity, parse_with_unit, UnitError, MAX_INPUT_
 pub use table::{
     all_units, factor, find_any, find_in, same_spelling, units_of, Normalized, Unit, UnitFamily,
 };
+pub use tagged::{render, tag};
 
 use serde::{Deserialize, Serialize};
 

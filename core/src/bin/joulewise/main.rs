@@ -19,7 +19,7 @@ use joulewise_core::assess::{assess, assess_with_study};
 use joulewise_core::figure::Verdict;
 use joulewise_core::report::Report;
 use joulewise_core::scenario::{demos, Scenario};
-use joulewise_core::units::{format_quantity, UnitSystem};
+use joulewise_core::units::{format_quantity, render, UnitSystem};
 use std::io::{Read, Write};
 use std::process::ExitCode;
 
@@ -282,7 +282,7 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
     if !r.errors.is_empty() {
         writeln!(out, "\nInput problems")?;
         for e in &r.errors {
-            writeln!(out, "  {e}")?;
+            writeln!(out, "  {}", render(&e.to_string(), system))?;
         }
     }
     writeln!(out, "\nFigures")?;
@@ -300,7 +300,7 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
                 "  {:<40} {:>14}   {}",
                 f.label,
                 "—",
-                f.missing.join("; ")
+                render(&f.missing.join("; "), system)
             )?,
         }
     }
@@ -330,12 +330,15 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
     if !r.notes.is_empty() {
         writeln!(out, "\nNotes")?;
         for n in &r.notes {
-            writeln!(out, "  - {n}")?;
+            writeln!(out, "  - {}", render(n, system))?;
         }
     }
     writeln!(out, "\nCautions")?;
     for c in &r.cautions {
         writeln!(out, "  - {}: {}", c.caution.title, c.caution.text)?;
+        for why in &c.because {
+            writeln!(out, "      because {}", render(why, system))?;
+        }
     }
     Ok(())
 }
@@ -361,7 +364,7 @@ fn write_csv(out: &mut impl Write, r: &Report) -> Result<()> {
             f.dim.si_symbol(),
             "",
             "",
-            &f.method,
+            &render(&f.method, UnitSystem::Si),
         ])?;
     }
     for c in &r.checks {
