@@ -5,7 +5,9 @@
 
 use crate::check_row::status_key;
 use crate::html::{push_el, push_esc, push_list};
+use crate::system::DisplaySystem;
 use joulewise_core::cautions::{AppliedCaution, CautionId};
+use joulewise_core::units::UnitSystem;
 use leptos::prelude::*;
 use std::fmt::Write;
 
@@ -23,7 +25,7 @@ pub fn caution_dom_id(id: CautionId) -> String {
     out
 }
 
-fn push_caution(out: &mut String, a: &AppliedCaution) {
+fn push_caution(out: &mut String, a: &AppliedCaution, sys: UnitSystem) {
     let c = &a.caution;
     let _ = write!(
         out,
@@ -35,7 +37,7 @@ fn push_caution(out: &mut String, a: &AppliedCaution) {
     push_el(out, "p", "", &c.text);
     if !c.general && !a.because.is_empty() {
         out.push_str(r#"<div class="caution-why"><span>Why here: </span>"#);
-        push_list(out, "", &a.because);
+        push_list(out, "", &a.because, sys);
         out.push_str("</div>");
     }
     if !c.sources.is_empty() {
@@ -63,11 +65,11 @@ fn push_caution(out: &mut String, a: &AppliedCaution) {
 
 /// The panel's body: the specific cautions (or a line saying there are
 /// none yet), then the general ones.
-pub fn cautions_html(list: &[AppliedCaution]) -> String {
+pub fn cautions_html(list: &[AppliedCaution], sys: UnitSystem) -> String {
     let mut out = String::from(r#"<h3>For this mechanism</h3><div class="caution-list">"#);
     let mut any = false;
     for a in list.iter().filter(|a| !a.caution.general) {
-        push_caution(&mut out, a);
+        push_caution(&mut out, a, sys);
         any = true;
     }
     if !any {
@@ -75,7 +77,7 @@ pub fn cautions_html(list: &[AppliedCaution]) -> String {
     }
     out.push_str(r#"</div><h3>With every assessment</h3><div class="caution-list">"#);
     for a in list.iter().filter(|a| a.caution.general) {
-        push_caution(&mut out, a);
+        push_caution(&mut out, a, sys);
     }
     out.push_str("</div>");
     out
@@ -88,7 +90,11 @@ pub fn CautionsPanel(
     #[prop(into)]
     cautions: Signal<Vec<AppliedCaution>>,
 ) -> impl IntoView {
-    let html = Signal::derive(move || cautions.with(|v| cautions_html(v)));
+    let sys = DisplaySystem::expect();
+    let html = Signal::derive(move || {
+        let s = sys.get();
+        cautions.with(|v| cautions_html(v, s))
+    });
     view! {
         <section class="cautions" id="cautions" aria-labelledby="cautions-title">
             <h2 id="cautions-title">"Cautions"</h2>

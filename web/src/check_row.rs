@@ -8,7 +8,7 @@
 //! within the limit; [`Check::margin_difference`], headroom: ≥ 0 is within).
 
 use crate::cautions_panel::caution_dom_id;
-use crate::html::{push_el, push_esc, push_list};
+use crate::html::{push_el, push_esc, push_list, push_text};
 use crate::system::DisplaySystem;
 use crate::verdict::{verdict_badge_html, verdict_key};
 use joulewise_core::cautions;
@@ -97,7 +97,7 @@ pub fn check_html(c: &Check, sys: UnitSystem) -> String {
         verdict_key(c.verdict),
         verdict_badge_html(c.verdict)
     );
-    push_esc(&mut out, &c.label);
+    push_text(&mut out, &c.label, sys);
     if c.informative {
         out.push_str(r#" <span class="tag">for information, not counted</span>"#);
     }
@@ -143,7 +143,7 @@ pub fn check_html(c: &Check, sys: UnitSystem) -> String {
         status_key(p.status),
         p.status.describe()
     );
-    push_list(&mut out, "check-notes", &c.notes);
+    push_list(&mut out, "check-notes", &c.notes, sys);
     if !c.cautions.is_empty() {
         out.push_str(r#"<div class="check-cautions"><span>Cautions: </span><ul>"#);
         for &id in &c.cautions {

@@ -15,7 +15,7 @@
 
 use crate::bind::Binding;
 use crate::field::QuantityField;
-use crate::labels::{field_dom_id, label_of};
+use crate::labels::{field_dom_id, help_of, label_of};
 use crate::state::Sheet;
 use joulewise_core::scenario::resolve::default_unit;
 use joulewise_core::scenario::Scenario;
@@ -60,6 +60,7 @@ pub fn qty_labelled(path: String, label: String, dim: Dim) -> AnyView {
             spread=spread
             problem=problem
             show_tol=show_tol
+            help=help_of(&path)
         />
     }
     .into_any()

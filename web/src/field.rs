@@ -152,6 +152,10 @@ pub fn QuantityField(
     /// with a tolerance always shows it).
     #[prop(optional, into)]
     show_tol: MaybeProp<bool>,
+    /// One line of help under the label (what to measure, what a blank
+    /// means); none when empty.
+    #[prop(optional)]
+    help: &'static str,
 ) -> impl IntoView {
     let sys = DisplaySystem::expect();
     let input_ref = NodeRef::<html::Input>::new();
@@ -224,7 +228,12 @@ pub fn QuantityField(
     let err_id = format!("{id}-error");
     let reads_id = format!("{id}-reads");
     let unit_id = format!("{id}-unit");
-    let described = format!("{err_id} {reads_id}");
+    let help_id = format!("{id}-help");
+    let described = if help.is_empty() {
+        format!("{err_id} {reads_id}")
+    } else {
+        format!("{help_id} {err_id} {reads_id}")
+    };
     let chooser = unit_choice.then(|| {
         let options = units::units_of(dim)
             .enumerate()
@@ -261,6 +270,7 @@ pub fn QuantityField(
     view! {
         <div class="field" data-invalid=invalid>
             <label for=id.clone()>{label.clone()}</label>
+            <p class="field-help" id=help_id hidden=help.is_empty()>{help}</p>
             <div class="qty">
                 <input
                     node_ref=input_ref

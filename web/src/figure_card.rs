@@ -9,7 +9,7 @@
 //! texts inside are markup from [`figure_value_html`] and [`figure_how_html`].
 
 use crate::cautions_panel::caution_dom_id;
-use crate::html::{push_el, push_esc, push_list};
+use crate::html::{push_el, push_esc, push_list, push_text};
 use crate::labels::{field_dom_id, label_of};
 use crate::system::DisplaySystem;
 use joulewise_core::cautions::AppliedCaution;
@@ -45,7 +45,7 @@ pub fn reason_path(reason: &str) -> Option<(&str, &str)> {
 
 /// Append the reasons a figure is missing, each naming its input by label
 /// with a link to the field; never empty.
-pub fn push_missing_html(out: &mut String, reasons: &[String]) {
+pub fn push_missing_html(out: &mut String, reasons: &[String], sys: UnitSystem) {
     out.push_str(r#"<span class="why">Not computed"#);
     if reasons.is_empty() {
         out.push_str(" (no reason was recorded).</span>");
@@ -64,9 +64,9 @@ pub fn push_missing_html(out: &mut String, reasons: &[String]) {
                 out.push_str(r#"">"#);
                 push_esc(out, &label_of(path));
                 out.push_str("</a>: ");
-                push_esc(out, rest);
+                push_text(out, rest, sys);
             }
-            None => push_esc(out, r),
+            None => push_text(out, r, sys),
         }
     }
     out.push_str(".</span>");
@@ -88,14 +88,14 @@ pub fn figure_value_html(f: &Figure, system: UnitSystem) -> String {
                 push_el(&mut out, "span", "unit", shown.unit);
             }
         }
-        None => push_missing_html(&mut out, &f.missing),
+        None => push_missing_html(&mut out, &f.missing, system),
     }
     out
 }
 
 /// Method, source and assumptions as a definition list; "not stated" where
 /// the core gave nothing.
-pub fn figure_how_html(f: &Figure) -> String {
+pub fn figure_how_html(f: &Figure, sys: UnitSystem) -> String {
     let or_not = |s: &str| {
         if s.trim().is_empty() {
             "not stated".to_string()
@@ -104,14 +104,14 @@ pub fn figure_how_html(f: &Figure) -> String {
         }
     };
     let mut out = String::from("<dl><dt>Method</dt><dd>");
-    push_esc(&mut out, &or_not(&f.method));
+    push_text(&mut out, &or_not(&f.method), sys);
     out.push_str("</dd><dt>Source</dt><dd>");
-    push_esc(&mut out, &or_not(&f.source));
+    push_text(&mut out, &or_not(&f.source), sys);
     out.push_str("</dd><dt>Assumptions</dt><dd>");
     if f.assumptions.is_empty() {
         out.push_str("None stated beyond the method.");
     } else {
-        push_list(&mut out, "", &f.assumptions);
+        push_list(&mut out, "", &f.assumptions, sys);
     }
     out.push_str("</dd></dl>");
     out
@@ -160,7 +160,10 @@ pub fn FigureCard(
     });
     let label = Signal::derive(move || figure.with(|f| f.label.clone()));
     let value = Signal::derive(move || figure.with(|f| figure_value_html(f, sys.get())));
-    let how = Signal::derive(move || figure.with(figure_how_html));
+    let how = Signal::derive(move || {
+        let s = sys.get();
+        figure.with(|f| figure_how_html(f, s))
+    });
     let warn =
         Memo::new(move |_| figure.with(|f| cautions.with(|c| caution_links_html(&f.label, c))));
     view! {

@@ -8,6 +8,7 @@
 //! switch, disclosures) stay Leptos views. Everything from outside the
 //! program's own literals, core texts included, passes through [`esc`].
 
+use joulewise_core::units::{render, UnitSystem};
 use std::fmt::Write;
 
 /// `s` with `& < > " '` escaped, safe in element text and in quoted
@@ -43,15 +44,29 @@ pub fn push_el(out: &mut String, tag: &str, class: &str, text: &str) {
     let _ = write!(out, "</{tag}>");
 }
 
-/// Append a `<ul class="class">` of escaped items (nothing when empty).
-pub fn push_list<'a>(out: &mut String, class: &str, items: impl IntoIterator<Item = &'a String>) {
+/// Append a text from the core, escaped, with the quantities it carries
+/// ([`joulewise_core::units::tag`]) written in `sys`.
+pub fn push_text(out: &mut String, s: &str, sys: UnitSystem) {
+    push_esc(out, &render(s, sys));
+}
+
+/// Append a `<ul class="class">` of texts from the core, as by
+/// [`push_text`] (nothing when empty).
+pub fn push_list<'a>(
+    out: &mut String,
+    class: &str,
+    items: impl IntoIterator<Item = &'a String>,
+    sys: UnitSystem,
+) {
     let mut items = items.into_iter().peekable();
     if items.peek().is_none() {
         return;
     }
     let _ = write!(out, "<ul class=\"{class}\">");
     for i in items {
-        push_el(out, "li", "", i);
+        out.push_str("<li>");
+        push_text(out, i, sys);
+        out.push_str("</li>");
     }
     out.push_str("</ul>");
 }

@@ -490,7 +490,11 @@ fn disc(prefix: &str) -> AnyView {
         let (p, q) = (prefix.to_string(), prefix.to_string());
         count(
             field_dom_id(&f(field)),
-            label_of(field),
+            if second {
+                "Discs nested in parallel per group".into()
+            } else {
+                "Discs stacked in series".into()
+            },
             bind(
                 move |s| match model_mut(s, &p)? {
                     SpringModelInput::Disc(d) => {
@@ -714,9 +718,9 @@ fn identified_rate() -> AnyView {
                     esc(&u.to_string()),
                     joulewise_core::units::format_sig(100.0 * est.rate.relative(), 2),
                     esc(est.method.describe()),
-                    esc(&est.formula)
+                    esc(&joulewise_core::units::render(&est.formula, s))
                 );
-                crate::html::push_list(&mut out, "hint", &est.notes);
+                crate::html::push_list(&mut out, "hint", &est.notes, s);
                 out
             }
             None => r#"<p class="hint">The identified rate shows here once the measurements read.</p>"#.into(),

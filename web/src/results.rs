@@ -118,6 +118,7 @@ pub fn headline_html(r: &Report, sys: UnitSystem) -> String {
 /// The figures, checks, plots and cautions.
 pub fn results() -> AnyView {
     let sheet = Sheet::get();
+    let sys = DisplaySystem::expect();
     let report = sheet.report;
     let cautions = Signal::derive(move || report.with(|r| r.cautions.clone()));
     let groups = (0..=GROUPS.len())
@@ -137,9 +138,10 @@ pub fn results() -> AnyView {
                 return String::new();
             }
             let mut out = String::from("<h3>Notes from the models</h3><ul>");
+            let s = sys.get();
             for n in &r.notes {
                 out.push_str("<li>");
-                push_esc(&mut out, n);
+                crate::html::push_text(&mut out, n, s);
                 out.push_str("</li>");
             }
             out.push_str("</ul>");
@@ -174,11 +176,11 @@ pub fn results() -> AnyView {
 }
 
 /// Why a figure is missing, as plain text for a plot's empty message.
-fn why_missing(r: &Report, id: &str, otherwise: &str) -> String {
+fn why_missing(r: &Report, id: &str, otherwise: &str, sys: UnitSystem) -> String {
     match r.figure(id) {
         Some(f) if f.value.is_none() => {
             let mut out = String::new();
-            push_missing_html(&mut out, &f.missing);
+            push_missing_html(&mut out, &f.missing, sys);
             strip_tags(&out)
         }
         _ => otherwise.to_string(),
@@ -232,6 +234,7 @@ pub fn spring_chart(r: &Report, sys: UnitSystem) -> LineChart {
             r,
             ids::ENERGY_STORED_LATCHED,
             "No spring in this assessment.",
+            sys,
         );
         return c;
     };
@@ -262,7 +265,7 @@ pub fn spring_chart(r: &Report, sys: UnitSystem) -> LineChart {
         c.markers.push(Marker {
             x: *q,
             y: None,
-            label: name.clone(),
+            label: joulewise_core::units::render(name, sys).into_owned(),
         });
     }
     c
@@ -271,12 +274,13 @@ pub fn spring_chart(r: &Report, sys: UnitSystem) -> LineChart {
 /// Named curves from the history: (legend, value of a point).
 type Pick = (&'static str, fn(&HistoryPoint) -> f64);
 
-fn motion_chart(r: &Report, title: &str, y: Axis, picks: &[Pick]) -> LineChart {
+fn motion_chart(r: &Report, title: &str, y: Axis, picks: &[Pick], sys: UnitSystem) -> LineChart {
     let mut c = LineChart::new(title, Axis::new("Time from release", Dim::Time), y);
     c.empty = why_missing(
         r,
         ids::RELEASE_CONTACT_SPEED,
         "The motion could not be computed.",
+        sys,
     );
     if r.history.is_empty() {
         return c;
@@ -325,6 +329,7 @@ fn plots() -> AnyView {
                 "Position against time",
                 y,
                 &[("position", |p| p.position)],
+                sys.get(),
             )
         })
     });
@@ -335,6 +340,7 @@ fn plots() -> AnyView {
                 "Speed of the closing edge against time",
                 Axis::new("Speed", Dim::Speed),
                 &[("speed", |p| p.hazard_speed)],
+                sys.get(),
             )
         })
     });
@@ -347,6 +353,7 @@ fn plots() -> AnyView {
                     "Buffer force against time",
                     Axis::new("Force", Dim::Force),
                     &[("buffer force", |p| p.buffer_force)],
+                    sys.get(),
                 )
             } else {
                 motion_chart(
@@ -357,6 +364,7 @@ fn plots() -> AnyView {
                         ("spring force", |p| p.spring_force),
                         ("buffer force", |p| p.buffer_force),
                     ],
+                    sys.get(),
                 )
             };
             for ch in r
@@ -381,6 +389,7 @@ fn plots() -> AnyView {
                 "Spring torque against time",
                 Axis::new("Torque", Dim::Torque),
                 &[("spring torque", |p| p.spring_force)],
+                sys.get(),
             )
         })
     });

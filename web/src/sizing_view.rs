@@ -6,27 +6,17 @@
 //! assessment computes.
 
 use crate::controls::{bind, qty, tick};
-use crate::html::{esc, push_esc};
+use crate::html::{esc, push_esc, push_text};
 use crate::state::Sheet;
 use crate::system::DisplaySystem;
 use crate::verdict::verdict_badge_html;
 use joulewise_core::figure::Figure;
 use joulewise_core::report::Report;
 use joulewise_core::scenario::SizingSpec;
-use joulewise_core::sizing::{
-    BufferType, Infeasibility, LimitKind, SizedBuffer, SizingOutcome, SizingResult,
-};
-use joulewise_core::units::{format_quantity, format_sig, Dim, UnitSystem};
+use joulewise_core::sizing::{BufferType, Infeasibility, SizedBuffer, SizingOutcome, SizingResult};
+use joulewise_core::units::{format_quantity, format_sig, render, Dim, UnitSystem};
 use leptos::prelude::*;
 use std::fmt::Write;
-
-fn limit_dim(k: LimitKind) -> Dim {
-    match k {
-        LimitKind::PeakForce => Dim::Force,
-        LimitKind::PeakDeceleration | LimitKind::MeanDeceleration => Dim::Acceleration,
-        LimitKind::Stroke => Dim::Length,
-    }
-}
 
 /// Stable key of a buffer type, for element ids and tests.
 pub fn buffer_key(b: &BufferType) -> &'static str {
@@ -63,34 +53,10 @@ fn buffer_title(b: &BufferType, sys: UnitSystem) -> String {
     }
 }
 
-/// Why no buffer of a type meets the limits, in the display units.
+/// Why no buffer of a type meets the limits, in the display units (the
+/// core's words, its quantities written in `sys`).
 pub fn explain(i: &Infeasibility, sys: UnitSystem) -> String {
-    let q = |v: f64, k: LimitKind| format_quantity(v, limit_dim(k), sys).to_string();
-    match *i {
-        Infeasibility::BelowFloor {
-            limit,
-            limit_value,
-            floor,
-        } => format!(
-            "the {} limit of {} is at or below {}, the least this type reaches while stopping the part against the forces along its motion",
-            limit.label(),
-            q(limit_value, limit),
-            q(floor, limit)
-        ),
-        Infeasibility::StrokeTooShort {
-            available,
-            required,
-            governing,
-        } => format!(
-            "the available stroke of {} is shorter than the {} the {} limit needs",
-            q(available, LimitKind::Stroke),
-            q(required, LimitKind::Stroke),
-            governing.label()
-        ),
-        Infeasibility::NotSolved { limit } => {
-            format!("no stroke was found for the {} limit", limit.label())
-        }
-    }
+    render(&i.explain(), sys).into_owned()
 }
 
 fn value_text(f: &Figure, sys: UnitSystem) -> String {
@@ -131,7 +97,7 @@ fn design_table(o: &SizingOutcome, designs: &[(&str, &SizedBuffer)], sys: UnitSy
         if !d.margins.is_empty() {
             out.push_str(r#"<table class="sizing-table margins-table"><caption>Margins of the design at the least stroke</caption><thead><tr><th scope="col">Limit</th><th scope="col">Limit value</th><th scope="col">Design</th><th scope="col">Limit ÷ design</th><th scope="col">Verdict</th></tr></thead><tbody>"#);
             for m in &d.margins {
-                let dim = limit_dim(m.limit);
+                let dim = m.limit.dim();
                 let _ = write!(
                     out,
                     r#"<tr><th scope="row">{}</th><td>{}</td><td>{}</td><td>{}</td><td>{}</td></tr>"#,
@@ -152,10 +118,10 @@ fn design_table(o: &SizingOutcome, designs: &[(&str, &SizedBuffer)], sys: UnitSy
             out.push_str("<dt>");
             push_esc(&mut out, &g.label);
             out.push_str("</dt><dd>");
-            push_esc(&mut out, &g.method);
+            push_text(&mut out, &g.method, sys);
             if !g.source.is_empty() {
                 out.push_str(" — ");
-                push_esc(&mut out, &g.source);
+                push_text(&mut out, &g.source, sys);
             }
             out.push_str("</dd>");
         }
@@ -242,14 +208,14 @@ pub fn sizing_html(r: &Report, asked: bool, sys: UnitSystem) -> String {
             .or_else(|| {
                 r.figure(joulewise_core::figure::ids::RELEASE_CONTACT_SPEED)
                     .filter(|f| f.value.is_none())
-                    .map(|f| crate::figure_card::missing_text(&f.missing))
+                    .map(|f| render(&crate::figure_card::missing_text(&f.missing), sys).into_owned())
             })
             .unwrap_or_else(|| {
                 "Nothing to size: the part does not reach the end of its travel, or no limit is given."
                     .into()
             });
         let mut out = String::from(r#"<p class="sizing-none">"#);
-        push_esc(&mut out, &why);
+        push_text(&mut out, &why, sys);
         out.push_str("</p>");
         return out;
     };

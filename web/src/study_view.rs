@@ -152,7 +152,7 @@ pub fn study_html(st: &StudyReport, r: &Report, sys: UnitSystem) -> String {
                     let _ = write!(
                         out,
                         r#"<tr><th scope="row">{}</th><td>{} {}</td><td>{}</td><td>{}{}</td></tr>"#,
-                        esc(&lim.label),
+                        esc(&joulewise_core::units::render(&lim.label, sys)),
                         if lim.at_most { "at most" } else { "at least" },
                         q(lim.threshold, dim),
                         ex.probability.map_or("—".into(), |p| {

@@ -214,7 +214,7 @@ fn a_missing_figure_says_why_and_never_shows_nan() {
         vec!["Spring rate: no value entered".into()],
     );
     assert!(figure_value_html(&m, UnitSystem::Us).contains("Spring rate: no value entered"));
-    let how = figure_how_html(&m);
+    let how = figure_how_html(&m, UnitSystem::Si);
     assert!(
         how.contains("not stated"),
         "empty method and source are said"
@@ -236,7 +236,7 @@ fn labels_from_outside_are_escaped() {
         "&lt;b&gt;&quot;x&quot; &amp; &#39;y&#39;"
     );
     let f = Figure::new("s", "<script>", Dim::Length, 1.0).method("a < b");
-    assert!(!figure_how_html(&f).contains("a < b"));
+    assert!(!figure_how_html(&f, UnitSystem::Si).contains("a < b"));
 }
 
 #[wasm_bindgen_test]
@@ -342,8 +342,13 @@ fn a_spring_model_is_found_by_its_path_at_any_depth() {
     assert!(value_mut(&mut s, "part.drive_force", true).is_some());
     assert_eq!(
         label_of("spring.model.members.1.rate"),
-        "member 2, spring rate"
+        "Member 2, spring rate"
     );
+    assert_eq!(
+        label_of("spring.model.loading.0.force"),
+        "Point 1, force (loading)"
+    );
+    assert_eq!(label_of("part.mass.tol"), "Moving mass (tolerance)");
     assert_eq!(
         field_dom_id("spring.model.members.1.rate"),
         "f-spring-model-members-1-rate"
@@ -408,6 +413,7 @@ fn a_missing_reason_names_the_field_by_label_and_links_to_it() {
             "part.mass: a value is required".into(),
             "the part stops before contact".into(),
         ],
+        UnitSystem::Si,
     );
     assert!(
         out.contains(r##"<a href="#f-part-mass">Moving mass</a>: a value is required"##),
@@ -419,6 +425,25 @@ fn a_missing_reason_names_the_field_by_label_and_links_to_it() {
         Some(("part.mass.tol", "bad"))
     );
     assert_eq!(reason_path("Spring rate: no value"), None);
+}
+
+#[wasm_bindgen_test]
+fn quantities_inside_core_texts_follow_the_display_system() {
+    let f = Figure::new("x", "X", Dim::Energy, 1.0)
+        .assume(&format!("stroke {}", units::tag(0.0254, Dim::Length)));
+    // 0.0254 m = 25.4 mm = 1 in exactly (NIST SP 811 (2008) App. B.8).
+    assert!(figure_how_html(&f, UnitSystem::Si).contains("stroke 25.4 mm"));
+    assert!(figure_how_html(&f, UnitSystem::Us).contains("stroke 1 in"));
+    let mut out = String::new();
+    push_missing_html(
+        &mut out,
+        &[format!(
+            "part.travel: less than {}",
+            units::tag(0.0254, Dim::Length)
+        )],
+        UnitSystem::Us,
+    );
+    assert!(out.contains("less than 1 in"), "{out}");
 }
 
 #[wasm_bindgen_test]

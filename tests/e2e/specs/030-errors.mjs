@@ -44,7 +44,7 @@ export const tests = {
       const msg = (await page.locator(`${gap}-error`).textContent()).trim();
       assert(msg.includes('zero or more'), `core's message at the field: ${msg}`);
       const closing = await figureText(page, 'fig-gap-closing_gap');
-      assert(closing.startsWith('Not computed') && closing.includes('Gap when the part first touches the buffer'), `gap needs it: ${closing}`);
+      assert(closing.startsWith('Not computed') && closing.includes('Gap at first buffer contact'), `gap needs it: ${closing}`);
       assertEq(await figureText(page, 'fig-impact-peak_force'), before, 'peak force still computed');
       // Corrected, the message goes and the figure comes back.
       await typeInto(page.locator(gap), '140 mm');

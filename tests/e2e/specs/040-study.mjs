@@ -38,7 +38,7 @@ export const tests = {
       assert(ex.includes('Frame design load') && /\d %/.test(ex) && ex.includes(' to '), `exceedance with interval: ${ex.slice(0, 300)}`);
       assert((await page.locator('#study-worst').textContent()).includes('Highest found'), 'worst-case corners');
       const inputs = await page.locator('#study-inputs').textContent();
-      assert(inputs.includes('Moving mass') && inputs.includes('Buffer force at full stroke'), `inputs that vary: ${inputs.slice(0, 200)}`);
+      assert(inputs.includes('Moving mass') && inputs.includes('Force at full stroke'), `inputs that vary: ${inputs.slice(0, 200)}`);
       const long = await page.evaluate(() => window.__longTasks);
       console.log(`     long tasks during the study: ${long.length}, longest ${Math.max(0, ...long).toFixed(0)} ms`);
       await shot(page, 'study-1440x900');

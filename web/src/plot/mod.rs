@@ -172,7 +172,7 @@ pub mod frame {
     /// Left margin (tick labels and the rotated axis title).
     pub const LEFT: f64 = 78.0;
     /// Right margin.
-    pub const RIGHT: f64 = 18.0;
+    pub const RIGHT: f64 = 34.0;
     /// Top margin (marker labels).
     pub const TOP: f64 = 20.0;
     /// Bottom margin (tick labels and the axis title).
