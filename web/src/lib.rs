@@ -38,7 +38,7 @@ pub mod system;
 pub mod verdict;
 
 use bind::Binding;
-use joulewise_core::scenario::demos;
+use joulewise_core::scenario::{demos, Scenario};
 use joulewise_core::units::UnitSystem;
 use leptos::prelude::*;
 use state::{Sheet, View};
@@ -171,10 +171,12 @@ fn view_nav() -> AnyView {
     .into_any()
 }
 
-/// Start from a demo or a blank assessment (the display units stay as set).
+/// Start from a demo or a blank assessment (the display units stay as set);
+/// the assessment left can be brought back once.
 fn demo_picker() -> AnyView {
     let sheet = Sheet::get();
     let chosen = RwSignal::new(FIRST_DEMO.to_string());
+    let previous: RwSignal<Option<Scenario>> = RwSignal::new(None);
     let options = demos::all()
         .into_iter()
         .map(|d| {
@@ -186,10 +188,19 @@ fn demo_picker() -> AnyView {
         .collect_view();
     let load = move |_| {
         let key = chosen.get_untracked();
-        let units = sheet.scenario.with_untracked(|s| s.display_units);
+        let current = sheet.scenario.get_untracked();
+        let units = current.display_units;
         let mut s = demos::by_key(&key).unwrap_or_else(|| blank::scenario(units));
         s.display_units = units;
+        previous.set(Some(current));
         sheet.load(s);
+    };
+    let undo = move |_| {
+        if let Some(mut s) = previous.get_untracked() {
+            s.display_units = sheet.scenario.with_untracked(|x| x.display_units);
+            previous.set(None);
+            sheet.load(s);
+        }
     };
     view! {
         <div class="demo-picker">
@@ -199,6 +210,9 @@ fn demo_picker() -> AnyView {
                 <option value=BLANK prop:selected=move || chosen.get() == BLANK>"New blank assessment"</option>
             </select>
             <button type="button" id="demo-load" on:click=load>"Load"</button>
+            <button type="button" id="demo-undo" hidden=move || previous.with(Option::is_none) on:click=undo>
+                "Back to the assessment before"
+            </button>
         </div>
     }
     .into_any()

@@ -71,6 +71,13 @@ export const tests = {
       await page.locator('#f-contact-kind').selectOption({ label: 'A part of a person\'s body' });
       // The body region typed before comes back as it was.
       assertEq(await page.locator(fieldId('contact.area.length')).inputValue(), '80 mm', 'body inputs kept when switching back');
+      // Loading a demo replaces the sheet; the assessment left comes back once asked.
+      await loadDemo(page, 'ejector');
+      assertEq(await page.locator('#f-identity-title').inputValue(), 'Part ejector, tray filler', 'demo loaded');
+      await page.locator('#demo-undo').click();
+      await settled(page);
+      assertEq(await page.locator('#f-identity-title').inputValue(), 'Hopper lid, line 2 ', 'work brought back');
+      assert(await page.locator('#demo-undo').isHidden(), 'only once');
       assertClean(b.log, 'identity');
     } finally {
       await b.close();
