@@ -449,22 +449,21 @@ fn evaluate(model: &Model, detail: Detail) -> Outcome {
         _ => 0,
     };
 
-    // Spring states: latched, released (at the contact position), extras.
-    if let (Some(sp), Some(part)) = (&model.spring, &model.part) {
-        let latched = deflection_at(sp, 0.0);
-        let released = deflection_at(sp, part_travel(part));
-        let mut states = vec![
-            State {
-                name: "Latched".into(),
-                deflection: latched,
-                role: StateRole::Latched,
-            },
-            State {
+    // Spring states: latched, released (at the contact position, which
+    // needs the part's travel), extras.
+    if let Some(sp) = &model.spring {
+        let mut states = vec![State {
+            name: "Latched".into(),
+            deflection: deflection_at(sp, 0.0),
+            role: StateRole::Latched,
+        }];
+        if let Some(part) = &model.part {
+            states.push(State {
                 name: "Released, on its stop".into(),
-                deflection: released,
+                deflection: deflection_at(sp, part_travel(part)),
                 role: StateRole::Released,
-            },
-        ];
+            });
+        }
         for (name, q) in &model.extra_states {
             states.push(State {
                 name: name.clone(),
@@ -509,7 +508,7 @@ fn evaluate(model: &Model, detail: Detail) -> Outcome {
                 &ContinuousConfig {
                     release: rcfg,
                     buffer_radius: radius,
-                    cycles_per_hour: model.cycles_per_hour,
+                    cycles_per_hour: model.cycles_per_hour.unwrap_or(0.0),
                 },
             ) {
                 Ok(ri) => {
@@ -655,7 +654,7 @@ fn sizing_input(
         drive_force: forces[0] + forces[2],
         gravity_force: forces[1],
         friction_force: forces[3],
-        cycles_per_hour: model.cycles_per_hour,
+        cycles_per_hour: model.cycles_per_hour.unwrap_or(0.0),
         limits: *limits,
     })
 }
@@ -835,12 +834,21 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
     let mut f = Vec::new();
     let upstream = reasons(errors, &["part", "spring"]);
 
-    // Spring and states.
+    // Spring and states: they need the spring; the released state also needs
+    // the part's travel.
     match &out.states {
-        Some(Ok(st)) => f.extend(st.figures()),
+        Some(Ok(st)) => {
+            let part_why = reasons(errors, &["part"]);
+            f.extend(st.figures().into_iter().map(|mut fig| {
+                if fig.value.is_none() && model.part.is_none() && !part_why.is_empty() {
+                    fig.missing = part_why.clone();
+                }
+                fig
+            }));
+        }
         Some(Err(e)) => f.extend(missing_all(SPRING_FIGURES, &[e.to_string()])),
         None if model.spring_given => {
-            let mut why = upstream.clone();
+            let mut why = reasons(errors, &["spring", "states"]);
             if why.is_empty() {
                 why.push("the spring could not be read".into());
             }
@@ -931,6 +939,15 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
                     why,
                 ));
             }
+        }
+    }
+
+    // A heat load needs the cycle rate: an unusable entry removes it.
+    if model.cycles_per_hour.is_none() {
+        let why = reasons(errors, &["cycles_per_hour"]);
+        for fig in f.iter_mut().filter(|x| x.id == ids::IMPACT_HEAT_LOAD) {
+            fig.value = None;
+            fig.missing = why.clone();
         }
     }
 
@@ -1030,9 +1047,15 @@ fn checks(model: &Model, out: &Outcome, figures: &[Figure]) -> Vec<Check> {
     };
 
     if let Some((buffer_type, rated)) = l.en81 {
-        let stop = buffer
-            .zip(mass)
-            .and_then(|(b, m)| stop_at(b, m, 1.15 * rated, incline, model.cycles_per_hour));
+        let stop = buffer.zip(mass).and_then(|(b, m)| {
+            stop_at(
+                b,
+                m,
+                1.15 * rated,
+                incline,
+                model.cycles_per_hour.unwrap_or(0.0),
+            )
+        });
         push(
             &mut c,
             limits::lift::en81_checks(&limits::lift::En81BufferCase {
@@ -1047,9 +1070,15 @@ fn checks(model: &Model, out: &Outcome, figures: &[Figure]) -> Vec<Check> {
         );
     }
     if let Some((installation, buffer_type, rated, limiter)) = l.us {
-        let stop = buffer
-            .zip(mass)
-            .and_then(|(b, m)| stop_at(b, m, 1.15 * rated, incline, model.cycles_per_hour));
+        let stop = buffer.zip(mass).and_then(|(b, m)| {
+            stop_at(
+                b,
+                m,
+                1.15 * rated,
+                incline,
+                model.cycles_per_hour.unwrap_or(0.0),
+            )
+        });
         push(
             &mut c,
             limits::lift::us_checks(&limits::lift::UsBufferCase {

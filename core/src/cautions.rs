@@ -108,6 +108,10 @@ pub struct AppliedCaution {
     pub caution: Caution,
     /// What in this assessment brought it up (figures, checks), in words.
     pub because: Vec<String>,
+    /// Ids of the figures that brought it up (to place it beside them).
+    pub figures: Vec<String>,
+    /// Ids of the checks that brought it up.
+    pub checks: Vec<String>,
 }
 
 fn p(document: &str, clause: &str, status: SourceStatus) -> Provenance {
@@ -255,8 +259,11 @@ fn figure_state<'a>(figures: &'a [Figure], id: &str) -> Option<(&'a Figure, Opti
 ///   limit exceeded; a counted check that is unknown → check not made;
 /// - always: confirm by measurement, competent person, local rules.
 pub fn cautions_for(figures: &[Figure], checks: &[Check]) -> Vec<AppliedCaution> {
-    let mut reasons: Vec<(CautionId, String)> = Vec::new();
-    let mut add = |id: CautionId, why: String| reasons.push((id, why));
+    // (caution, reason in words, figure id, check id)
+    let mut reasons: Vec<(CautionId, String, Option<String>, Option<String>)> = Vec::new();
+    let mut add_from = |id: CautionId, why: String, fig: Option<&str>, chk: Option<&str>| {
+        reasons.push((id, why, fig.map(str::to_string), chk.map(str::to_string)))
+    };
 
     let describe = |f: &Figure, present: Option<bool>| match (present, f.value) {
         (Some(true), Some(v)) => Some(format!("{} is {}", f.label, tag(v, f.dim))),
@@ -271,62 +278,92 @@ pub fn cautions_for(figures: &[Figure], checks: &[Check]) -> Vec<AppliedCaution>
     ] {
         if let Some((f, state)) = figure_state(figures, id) {
             if let Some(why) = describe(f, state) {
-                add(CautionId::LockOutStoredEnergy, why.clone());
-                add(CautionId::FractureFragments, why);
+                add_from(
+                    CautionId::LockOutStoredEnergy,
+                    why.clone(),
+                    Some(&f.id),
+                    None,
+                );
+                add_from(CautionId::FractureFragments, why, Some(&f.id), None);
             }
         }
     }
     for id in [ids::ENERGY_RESIDUAL, ids::SPRING_FORCE_RELEASED] {
         if let Some((f, state)) = figure_state(figures, id) {
             if let Some(why) = describe(f, state) {
-                add(CautionId::NoDismantlingUnderPreload, why);
+                add_from(CautionId::NoDismantlingUnderPreload, why, Some(&f.id), None);
             }
         }
     }
     for id in [ids::IMPACT_RESIDUAL_ENERGY, ids::IMPACT_RESIDUAL_SPEED] {
         if let Some((f, Some(true))) = figure_state(figures, id) {
             if let Some(v) = f.value {
-                add(
+                add_from(
                     CautionId::BufferBottoming,
                     format!("{} is {}", f.label, tag(v, f.dim)),
+                    Some(&f.id),
+                    None,
                 );
             }
         }
     }
     for c in checks {
         for &id in &c.cautions {
-            add(id, format!("check: {}", c.label));
+            add_from(
+                id,
+                format!("check: {}", c.label),
+                Some(&c.figure),
+                Some(&c.id),
+            );
         }
         if !c.informative {
             match c.verdict {
-                Verdict::Fail => add(
+                Verdict::Fail => add_from(
                     CautionId::LimitExceeded,
                     format!("check failed: {}", c.label),
+                    Some(&c.figure),
+                    Some(&c.id),
                 ),
-                Verdict::Unknown => add(
+                Verdict::Unknown => add_from(
                     CautionId::CheckNotMade,
                     format!("check not made: {}", c.label),
+                    Some(&c.figure),
+                    Some(&c.id),
                 ),
                 Verdict::Pass | Verdict::NotApplicable => {}
             }
         }
     }
     for id in CautionId::GENERAL {
-        add(id, "shown with every assessment".into());
+        add_from(id, "shown with every assessment".into(), None, None);
     }
 
     CautionId::ALL
         .iter()
         .filter_map(|&id| {
             let mut because: Vec<String> = Vec::new();
-            for (_, why) in reasons.iter().filter(|(r, _)| *r == id) {
+            let mut figs: Vec<String> = Vec::new();
+            let mut chks: Vec<String> = Vec::new();
+            for (_, why, fig, chk) in reasons.iter().filter(|(r, ..)| *r == id) {
                 if !because.contains(why) {
                     because.push(why.clone());
+                }
+                if let Some(fid) = fig.as_ref().filter(|x| !x.is_empty()) {
+                    if !figs.contains(fid) {
+                        figs.push(fid.clone());
+                    }
+                }
+                if let Some(cid) = chk {
+                    if !chks.contains(cid) {
+                        chks.push(cid.clone());
+                    }
                 }
             }
             (!because.is_empty()).then(|| AppliedCaution {
                 caution: caution(id),
                 because,
+                figures: figs,
+                checks: chks,
             })
         })
         .collect()

@@ -245,7 +245,8 @@ impl<'a> Reader<'a> {
         }
     }
 
-    /// Read an input that defaults to `default_si` when left blank.
+    /// Read an input that defaults to `default_si` when left blank; `None`
+    /// (with the error recorded) when something unusable was entered.
     pub fn or(
         &mut self,
         field: &str,
@@ -254,12 +255,12 @@ impl<'a> Reader<'a> {
         default_unit: &str,
         rule: Rule,
         default_si: f64,
-    ) -> f64 {
+    ) -> Option<f64> {
         match value {
-            Some(v) if !v.is_blank() => self
-                .num(field, v, dim, default_unit, rule)
-                .unwrap_or(default_si),
-            _ => default_si,
+            // An invalid entry is not quietly replaced by the default: the
+            // figures that depend on it go missing, naming the field.
+            Some(v) if !v.is_blank() => self.num(field, v, dim, default_unit, rule),
+            _ => Some(default_si),
         }
     }
 }

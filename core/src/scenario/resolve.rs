@@ -76,8 +76,8 @@ pub struct Model {
     pub limits: LimitsModel,
     /// Sizing request.
     pub sizing: Option<SizingLimits>,
-    /// Release cycles per hour (1/s internally: Hz).
-    pub cycles_per_hour: f64,
+    /// Releases per hour; `None` when what was entered is unusable.
+    pub cycles_per_hour: Option<f64>,
     /// Field identification of the spring, when used.
     pub identification: Option<RateEstimate>,
 }
@@ -326,14 +326,16 @@ pub fn resolve(s: &Scenario, r: &mut Reader<'_>) -> Model {
         .sizing
         .as_ref()
         .map(|z| r.within("sizing", |r| sizing(z, r)));
-    let cycles_per_hour = r.or(
-        "cycles_per_hour",
-        &s.cycles_per_hour,
-        Dim::Frequency,
-        "1/h",
-        Rule::NonNegative,
-        0.0,
-    ) * 3600.0;
+    let cycles_per_hour = r
+        .or(
+            "cycles_per_hour",
+            &s.cycles_per_hour,
+            Dim::Frequency,
+            "1/h",
+            Rule::NonNegative,
+            0.0,
+        )
+        .map(|hz| hz * 3600.0);
     Model {
         part,
         spring,
@@ -356,7 +358,14 @@ fn opt(r: &mut Reader<'_>, field: &str, v: &Option<Value>, dim: Dim, rule: Rule)
     r.opt(field, v, dim, default_unit(dim), rule)
 }
 
-fn or(r: &mut Reader<'_>, field: &str, v: &Option<Value>, dim: Dim, rule: Rule, d: f64) -> f64 {
+fn or(
+    r: &mut Reader<'_>,
+    field: &str,
+    v: &Option<Value>,
+    dim: Dim,
+    rule: Rule,
+    d: f64,
+) -> Option<f64> {
     r.or(field, v, dim, default_unit(dim), rule, d)
 }
 
@@ -394,10 +403,10 @@ fn part(p: &PartInput, r: &mut Reader<'_>) -> Option<PartModel> {
             Some(PartModel::Translating {
                 mass: mass?,
                 travel: travel?,
-                incline,
+                incline: incline?,
                 friction: friction?,
-                damping,
-                drive_force,
+                damping: damping?,
+                drive_force: drive_force?,
                 include_spring_mass: t.include_spring_mass,
             })
         }
@@ -451,11 +460,11 @@ fn part(p: &PartInput, r: &mut Reader<'_>) -> Option<PartModel> {
             );
             Some(PartModel::Rotating {
                 inertia: inertia?,
-                hinge_tilt,
-                cg_angle_at_latch: cg_angle,
+                hinge_tilt: hinge_tilt?,
+                cg_angle_at_latch: cg_angle?,
                 travel: travel?,
-                friction_torque,
-                drive_torque,
+                friction_torque: friction_torque?,
+                drive_torque: drive_torque?,
                 hazard_radius: hazard_radius?,
             })
         }
@@ -692,7 +701,7 @@ fn spring_spec(
                 nominal_force: f1?,
                 progression: p?,
                 stroke: s?,
-                friction_band: fb,
+                friction_band: fb?,
                 force_reference: *force_reference,
                 polytropic_index: kappa,
                 moving_mass: None,
@@ -742,8 +751,8 @@ fn spring_spec(
                 inner_diameter: di?,
                 thickness: t?,
                 cone_height: h0?,
-                youngs_modulus: e,
-                poisson_ratio: mu,
+                youngs_modulus: e?,
+                poisson_ratio: mu?,
                 in_series: d.in_series,
                 in_parallel: d.in_parallel,
                 constant: DiscConstant::En16984K1,
@@ -1155,7 +1164,7 @@ fn buffer_law(l: &BufferLawInput, r: &mut Reader<'_>) -> Option<LawModel> {
             );
             Some(LawModel::Spring {
                 spring: Box::new(spring?),
-                preload: pre,
+                preload: pre?,
             })
         }
         BufferLawInput::ConstantForce { force, stroke } => {
@@ -1178,7 +1187,7 @@ fn buffer_law(l: &BufferLawInput, r: &mut Reader<'_>) -> Option<LawModel> {
             );
             Some(LawModel::Absorber {
                 stroke: s?,
-                efficiency: eta,
+                efficiency: eta?,
             })
         }
         BufferLawInput::Orifice {

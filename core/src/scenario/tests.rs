@@ -195,3 +195,47 @@ fn a_bottoming_buffer_accounts_for_every_joule() {
     let me = r.value(ids::IMPACT_EFFECTIVE_MASS).unwrap();
     assert!((me - 2.0 * expected / (v * v)).abs() <= REL_ODE_ENERGY * me);
 }
+
+#[test]
+fn cautions_name_the_figures_and_checks_that_brought_them_up() {
+    let r = assess(&demos::guard_door()).unwrap();
+    let find = |id| r.cautions.iter().find(|c| c.caution.id == id).unwrap();
+    let lock = find(crate::cautions::CautionId::LockOutStoredEnergy);
+    assert!(lock.figures.iter().any(|f| f == ids::ENERGY_STORED_LATCHED));
+    let exceeded = find(crate::cautions::CautionId::LimitExceeded);
+    let failing: Vec<&str> = r
+        .checks
+        .iter()
+        .filter(|c| c.verdict == crate::figure::Verdict::Fail)
+        .map(|c| c.id.as_str())
+        .collect();
+    assert!(!failing.is_empty());
+    for id in failing {
+        assert!(exceeded.checks.iter().any(|c| c == id), "{id}");
+    }
+}
+
+#[test]
+fn an_unusable_optional_input_removes_what_depends_on_it_not_more() {
+    // Cycles per hour feed only the heat load.
+    let mut s = demos::carriage_stop();
+    s.cycles_per_hour = Some(Value::new("-5 /h"));
+    let r = assess(&s).unwrap();
+    let heat = r.figure(ids::IMPACT_HEAT_LOAD).unwrap();
+    assert_eq!(heat.value, None);
+    assert!(heat.missing.iter().any(|m| m.contains("cycles_per_hour")));
+    assert!(r.value(ids::IMPACT_PEAK_FORCE).is_some());
+    // A bad mass does not hide the energy stored in the spring.
+    let mut s = demos::ejector();
+    if let PartInput::Translating(t) = &mut s.part {
+        t.mass = Value::new("heavy");
+    }
+    let r = assess(&s).unwrap();
+    assert!(r.value(ids::ENERGY_STORED_LATCHED).is_some());
+    let speed = r.figure(ids::RELEASE_CONTACT_SPEED).unwrap();
+    assert!(
+        speed.missing.iter().any(|m| m.contains("part.mass")),
+        "{:?}",
+        speed.missing
+    );
+}
