@@ -401,7 +401,9 @@ pub fn batch(file: &str, json_out: bool, output: Option<&str>) -> Result<u8> {
     if lower.ends_with(".csv") {
         let mut rdr = csv::ReaderBuilder::new()
             .flexible(false)
-            .trim(csv::Trim::All)
+            // Cells are trimmed where they are read (`Row::get`): trimming
+            // the whole record would rebuild it for every row.
+            .trim(csv::Trim::Headers)
             .from_path(file)
             .with_context(|| format!("reading {file}"))?;
         let headers = rdr
@@ -587,12 +589,14 @@ struct Row<'a> {
 }
 
 impl<'a> Row<'a> {
-    /// The cell of column `name`, empty when the column is absent.
+    /// The cell of column `name` without leading and trailing ASCII
+    /// whitespace (as `csv::Trim::All` would leave it), empty when the
+    /// column is absent.
     fn get(&self, name: &str) -> &'a str {
         self.index
             .get(name)
             .and_then(|&i| self.record.get(i))
-            .unwrap_or("")
+            .map_or("", str::trim_ascii)
     }
 }
 
