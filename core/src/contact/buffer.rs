@@ -762,6 +762,9 @@ struct MechCarrier<'m, 'a> {
     detach: Option<f64>,
     lever: f64,
     q_contact: f64,
+    /// `(active, friction, damping)` at the buffer when they do not depend
+    /// on the position (a sliding part off its spring; lever 1).
+    constant: Option<(f64, f64, f64)>,
 }
 
 impl MechCarrier<'_, '_> {
@@ -777,6 +780,9 @@ impl Carrier for MechCarrier<'_, '_> {
     }
     #[inline]
     fn forces(&self, x: f64, dir: f64) -> (f64, f64, f64) {
+        if let Some(c) = self.constant {
+            return c;
+        }
         let q = self.q_contact + x / self.lever;
         let f = self.mech.forces(q, dir, self.on_spring(q));
         (
@@ -975,12 +981,23 @@ pub fn release_into_buffer(
             impact: None,
         });
     }
+    // A sliding part off its spring meets only constant forces (gravity,
+    // drive, friction, damping): computed once instead of at every
+    // evaluation of the stroke.
+    let constant = match mech {
+        Mechanism::Translating(_) if !rel.spring_engaged => {
+            let f = mech.forces(rel.position, 1.0, false);
+            Some((f.active(), f.friction, f.damping))
+        }
+        _ => None,
+    };
     let carrier = MechCarrier {
         mech,
         engaged: rel.spring_engaged,
         detach: mech.detach_position(),
         lever,
         q_contact: rel.position,
+        constant,
     };
     let icfg = ImpactConfig {
         solver: cfg.release.solver,
