@@ -215,9 +215,21 @@ pub fn assess_with_study(s: &Scenario) -> Result<Report, ScenarioError> {
 /// SHA-256 of the scenario's JSON with the informative SI values left out
 /// (hex).
 pub fn scenario_hash(s: &Scenario) -> String {
-    let json = serde_json::to_vec(s).unwrap_or_default();
+    // A scenario's JSON is a few kilobytes: one allocation of that size
+    // instead of a vector grown from nothing.
+    let mut json = Vec::with_capacity(4096);
+    if serde_json::to_writer(&mut json, s).is_err() {
+        // As `to_vec(..).unwrap_or_default()`: unwritable hashes as empty.
+        json.clear();
+    }
     let digest = Sha256::digest(&json);
-    digest.iter().map(|b| format!("{b:02x}")).collect()
+    const HEX: &[u8; 16] = b"0123456789abcdef";
+    let mut out = String::with_capacity(2 * digest.len());
+    for b in digest.iter() {
+        out.push(char::from(HEX[usize::from(b >> 4)]));
+        out.push(char::from(HEX[usize::from(b & 0x0f)]));
+    }
+    out
 }
 
 fn input_line(rec: &InputRecord) -> InputLine {
@@ -973,6 +985,52 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
     f
 }
 
+/// The value of figure `id` as [`figures`] reports it (the numbers only,
+/// from each outcome's `figure_value`, the same function its figures take
+/// their values from), without building the figures: the tolerance study
+/// reads thousands of samples this way. Each id belongs to one outcome, so
+/// the first outcome that has it answers; a figure that is missing gives
+/// `None`, as in the report.
+fn value_of(model: &Model, out: &Outcome, id: &str) -> Option<f64> {
+    let states = || match &out.states {
+        Some(Ok(st)) => st.figure_value(id),
+        _ => None,
+    };
+    let release = || match &out.release {
+        Some(Ok(rel)) => rel.figure_value(id),
+        _ => None,
+    };
+    let contact = || match &model.contact {
+        ContactModel::Buffer(_) => out.impact.as_ref().and_then(|i| i.figure_value(id)),
+        ContactModel::Body(_) => {
+            let transient = match &out.transient {
+                Some(Ok(t)) => t.figure_value(id),
+                _ => None,
+            };
+            transient.or_else(|| match &out.clamping {
+                Some(Ok(c)) => c.figure_value(id),
+                _ => None,
+            })
+        }
+        ContactModel::Invalid | ContactModel::None => None,
+    };
+    let gap = || match &out.gap {
+        Some(Ok(g)) if model.gap.is_some() => g.figure_value(id),
+        _ => None,
+    };
+    let identified = || match &model.identification {
+        Some(est) if id == crate::identify::ids::IDENTIFY_RATE => {
+            Some(est.rate.value).filter(|v| v.is_finite())
+        }
+        _ => None,
+    };
+    states()
+        .or_else(release)
+        .or_else(contact)
+        .or_else(gap)
+        .or_else(identified)
+}
+
 /// Checks produce some figures of their own (e.g. deceleration at 20 % of a
 /// crane's rated speed); nothing to add yet beyond the checks themselves.
 fn add_check_figures(_figures: &mut [Figure], _checks: &[Check]) {}
@@ -1572,12 +1630,85 @@ impl Evaluator<'_> {
         let mut r = Reader::replay(&self.base);
         let model = resolve(self.scenario, &mut r);
         let out = evaluate(&model, Detail::Numbers);
-        let figs = figures(&model, &out, &[]);
         for (k, (id, _)) in self.ids.iter().enumerate() {
             if let Some(slot) = y.get_mut(k) {
-                *slot = value(&figs, id).unwrap_or(f64::NAN);
+                *slot = value_of(&model, &out, id).unwrap_or(f64::NAN);
             }
         }
         Ok(())
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::scenario::demos;
+
+    /// Every figure id the report of a scenario carries (and every id the
+    /// study follows) has the same value from [`value_of`] as from
+    /// [`figures`], bit for bit, nominal and at perturbed inputs: the study
+    /// reads exactly the numbers the report prints.
+    /// Returns how many figures were missing (so the test can tell that
+    /// missing figures were met, not only computed ones).
+    fn assert_value_of_matches_figures(s: &Scenario, perturb: &[f64]) -> usize {
+        let mut missing = 0;
+        let mut r = Reader::record();
+        let _ = resolve(s, &mut r);
+        let base: Vec<f64> = r.records.iter().map(|x| x.si.unwrap_or(f64::NAN)).collect();
+        for (k, f) in perturb.iter().enumerate() {
+            let mut values = base.clone();
+            for (i, v) in values.iter_mut().enumerate() {
+                // Each input moves by its own share of the factor.
+                if i % (k + 2) == 0 {
+                    *v *= f;
+                }
+            }
+            let mut rr = Reader::replay(&values);
+            let model = resolve(s, &mut rr);
+            for detail in [Detail::Numbers, Detail::Full] {
+                let out = evaluate(&model, detail);
+                let figs = figures(&model, &out, &[]);
+                let ids = figs
+                    .iter()
+                    .map(|f| f.id.as_str())
+                    .chain(STUDY_FIGURES.iter().copied());
+                for id in ids {
+                    let want = value(&figs, id);
+                    let got = value_of(&model, &out, id);
+                    missing += usize::from(want.is_none());
+                    assert_eq!(
+                        got.map(f64::to_bits),
+                        want.map(f64::to_bits),
+                        "{id} at factor {f}: {got:?} against {want:?}"
+                    );
+                }
+            }
+        }
+        missing
+    }
+
+    #[test]
+    fn scenario_hash_is_the_sha256_of_the_scenario_json() {
+        // FIPS 180-4 SHA-256 of the JSON text, as lowercase hex: the same
+        // digest as hashing the whole text at once (sha2 crate).
+        for d in demos::all() {
+            let s = (d.build)();
+            let want: String = Sha256::digest(serde_json::to_vec(&s).unwrap())
+                .iter()
+                .map(|b| format!("{b:02x}"))
+                .collect();
+            assert_eq!(scenario_hash(&s), want, "{}", d.key);
+        }
+    }
+
+    #[test]
+    fn value_of_gives_what_the_figures_say_for_every_demo() {
+        // Factors that move demos across regimes (contact, stall, bottoming).
+        let factors = [1.0, 0.5, 0.9, 1.1, 1.7, 3.0, 0.05];
+        let mut missing = 0;
+        for d in demos::all() {
+            missing += assert_value_of_matches_figures(&(d.build)(), &factors);
+        }
+        assert!(missing > 0, "no missing figure was met");
     }
 }

@@ -6,10 +6,13 @@
 //!   `N passed, N failed`.
 //! - `dist`: write the deployable static folder `dist/` (offline-capable)
 //!   and the single self-contained file `dist-single/joulewise.html`.
+//! - `bench`: measure every performance goal against its budget (not part
+//!   of `test`).
 //!
 //! Only the package registries are used (crates.io, npm, Debian); no tool is
 //! ever downloaded from anywhere else.
 
+mod bench;
 mod dist;
 mod serve;
 mod steps;
@@ -17,11 +20,14 @@ mod tools;
 
 use std::process::ExitCode;
 
-const USAGE: &str = "usage: cargo xtask <serve|dist|test> [options]
+const USAGE: &str = "usage: cargo xtask <serve|dist|test|bench> [options]
   serve [--port N] [--public-url /path/]   build the release app and serve it on 127.0.0.1
   dist  [--public-url /path/]              write the deployable folder dist/ and dist-single/joulewise.html
   test  [--only NAME[,NAME...]] [--skip NAME[,NAME...]]
-                                           run every test (names: fmt, clippy, unit, wasm, e2e)";
+                                           run every test (names: fmt, clippy, unit, wasm, e2e)
+  bench [--only NAME[,NAME...]] [--skip NAME[,NAME...]] [--save-baseline]
+                                           measure the performance goals (names: core, scipy,
+                                           batch, size, browser); fails when one is over budget";
 
 fn main() -> ExitCode {
     let args: Vec<String> = std::env::args().skip(1).collect();
@@ -34,6 +40,7 @@ fn main() -> ExitCode {
         "serve" => serve_cmd(rest),
         "dist" => dist_cmd(rest),
         "test" => steps::test_cmd(rest),
+        "bench" => bench::bench_cmd(rest),
         "-h" | "--help" | "help" => {
             println!("{USAGE}");
             Ok(())

@@ -489,6 +489,35 @@ pub fn transient_contact(input: &TransientContact) -> Result<TransientOutcome, I
 }
 
 impl TransientOutcome {
+    /// The value of figure `id` as [`TransientOutcome::figures`] reports it,
+    /// in SI: `None` when that figure is missing (no limit given for the
+    /// permissible speed, a non-finite result) or is not one of these
+    /// figures. The one place that maps the figure ids to numbers:
+    /// [`TransientOutcome::figures`] takes its values from here, and the
+    /// tolerance study reads them without building the figures. A region
+    /// where transient contact is not permissible has permissible speed 0.
+    pub fn figure_value(&self, id: &str) -> Option<f64> {
+        match id {
+            ids::BODY_REDUCED_MASS => Some(self.reduced_mass),
+            ids::BODY_TRANSIENT_FORCE => Some(self.peak_force),
+            ids::BODY_TRANSFER_ENERGY => Some(self.transfer_energy),
+            ids::BODY_TRANSIENT_PRESSURE => Some(self.pressure),
+            ids::BODY_PERMISSIBLE_SPEED => match &self.permissible_speed {
+                PermissibleSpeed::Limited { speed, .. } => Some(*speed),
+                PermissibleSpeed::NotPermissible { .. } => Some(0.0),
+                PermissibleSpeed::NoLimitGiven => None,
+            },
+            _ => None,
+        }
+        .filter(|v| v.is_finite())
+    }
+
+    /// [`TransientOutcome::figure_value`], NaN when missing (which
+    /// [`Figure::new`] records as missing).
+    fn value_or_nan(&self, id: &str) -> f64 {
+        self.figure_value(id).unwrap_or(f64::NAN)
+    }
+
     /// The figures of the contact: reduced mass, peak force, transferred
     /// energy, pressure and permissible speed.
     pub fn figures(&self) -> Vec<Figure> {
@@ -523,7 +552,7 @@ impl TransientOutcome {
             ids::BODY_REDUCED_MASS,
             "Reduced mass of the contact",
             Dim::Mass,
-            self.reduced_mass,
+            self.value_or_nan(ids::BODY_REDUCED_MASS),
         )
         .method("μ = (1/m_H + 1/m_R)⁻¹")
         .source(&src)
@@ -535,7 +564,7 @@ impl TransientOutcome {
                 ids::BODY_TRANSIENT_FORCE,
                 "Peak transient contact force",
                 Dim::Force,
-                self.peak_force,
+                self.value_or_nan(ids::BODY_TRANSIENT_FORCE),
             )
             .method(if self.padded {
                 "F from ½·μ·v² = energy stored in body and pad in series (F = v·√(μ·k_eff) while the pad is not flat)"
@@ -552,7 +581,7 @@ impl TransientOutcome {
                 ids::BODY_TRANSFER_ENERGY,
                 "Energy transferred to the body region",
                 Dim::Energy,
-                self.transfer_energy,
+                self.value_or_nan(ids::BODY_TRANSFER_ENERGY),
             )
             .method(if self.padded {
                 "E = F²/(2·k_body) (the pad takes the rest of ½·μ·v²)"
@@ -568,7 +597,7 @@ impl TransientOutcome {
             ids::BODY_TRANSIENT_PRESSURE,
             "Peak transient contact pressure",
             Dim::Pressure,
-            self.pressure,
+            self.value_or_nan(ids::BODY_TRANSIENT_PRESSURE),
         )
         .method("p = F/A")
         .source(&src)
@@ -583,17 +612,22 @@ impl TransientOutcome {
         let speed_label = "Highest permissible relative speed";
         let speed = match &self.permissible_speed {
             PermissibleSpeed::Limited {
-                speed,
                 by_force,
                 by_pressure,
                 governing,
+                ..
             } => {
                 let mut f = with_notes(
-                    Figure::new(ids::BODY_PERMISSIBLE_SPEED, speed_label, Dim::Speed, *speed)
-                        .method("v = F_max/√(μ·k) or v = p_max·A/√(μ·k), the lower governing")
-                        .source(&src)
-                        .assume(&region)
-                        .assume(two_body),
+                    Figure::new(
+                        ids::BODY_PERMISSIBLE_SPEED,
+                        speed_label,
+                        Dim::Speed,
+                        self.value_or_nan(ids::BODY_PERMISSIBLE_SPEED),
+                    )
+                    .method("v = F_max/√(μ·k) or v = p_max·A/√(μ·k), the lower governing")
+                    .source(&src)
+                    .assume(&region)
+                    .assume(two_body),
                 );
                 f = f.assume(match governing {
                     SpeedRoute::Force => "the force limit governs",
@@ -612,7 +646,7 @@ impl TransientOutcome {
                 ids::BODY_PERMISSIBLE_SPEED,
                 speed_label,
                 Dim::Speed,
-                0.0,
+                self.value_or_nan(ids::BODY_PERMISSIBLE_SPEED),
             )
             .method("transient contact not permissible for this region")
             .source(&format!(
@@ -749,6 +783,26 @@ pub fn clamping(input: &Clamping) -> Result<ClampingOutcome, InputError> {
 }
 
 impl ClampingOutcome {
+    /// The value of figure `id` as [`ClampingOutcome::figures`] reports it,
+    /// in SI: `None` for a non-finite result or an id that is not one of
+    /// these figures. The one place that maps the figure ids to numbers:
+    /// [`ClampingOutcome::figures`] takes its values from here, and the
+    /// tolerance study reads them without building the figures.
+    pub fn figure_value(&self, id: &str) -> Option<f64> {
+        match id {
+            ids::BODY_CLAMPING_FORCE => Some(self.clamping_force),
+            ids::BODY_CLAMPING_PRESSURE => Some(self.pressure),
+            _ => None,
+        }
+        .filter(|v| v.is_finite())
+    }
+
+    /// [`ClampingOutcome::figure_value`], NaN when missing (which
+    /// [`Figure::new`] records as missing).
+    fn value_or_nan(&self, id: &str) -> f64 {
+        self.figure_value(id).unwrap_or(f64::NAN)
+    }
+
     /// The figures: clamping force and clamping pressure.
     pub fn figures(&self) -> Vec<Figure> {
         let src = static_balance().cite();
@@ -762,7 +816,7 @@ impl ClampingOutcome {
             ids::BODY_CLAMPING_FORCE,
             "Quasi-static clamping force",
             Dim::Force,
-            self.clamping_force,
+            self.value_or_nan(ids::BODY_CLAMPING_FORCE),
         )
         .method("F = F_spring + F_drive + F_gravity − F_friction at rest on the body")
         .source(&src)
@@ -777,7 +831,7 @@ impl ClampingOutcome {
             ids::BODY_CLAMPING_PRESSURE,
             "Quasi-static clamping pressure",
             Dim::Pressure,
-            self.pressure,
+            self.value_or_nan(ids::BODY_CLAMPING_PRESSURE),
         )
         .method("p = F/A")
         .source(&src)

@@ -169,6 +169,19 @@ pub fn closing_gap(geometry: &ClosingGeometry) -> Result<ClosingGap, InputError>
 }
 
 impl ClosingGap {
+    /// The value of figure `id` as [`ClosingGap::figure`] reports it (m):
+    /// `None` for a non-finite result or another id. The one place that
+    /// maps the id to the number: [`ClosingGap::figure`] takes its value
+    /// from here, and the tolerance study reads it without building the
+    /// figure.
+    pub fn figure_value(&self, id: &str) -> Option<f64> {
+        match id {
+            ids::GAP_CLOSING_GAP => Some(self.gap),
+            _ => None,
+        }
+        .filter(|v| v.is_finite())
+    }
+
     /// The figure `gap.closing_gap`.
     pub fn figure(&self) -> Figure {
         let (method, source) = match self.geometry {
@@ -184,7 +197,7 @@ impl ClosingGap {
             ids::GAP_CLOSING_GAP,
             "Smallest gap at the closing point",
             Dim::Length,
-            self.gap,
+            self.figure_value(ids::GAP_CLOSING_GAP).unwrap_or(f64::NAN),
         )
         .method(method)
         .source(source)

@@ -5,7 +5,8 @@
 //! The explicit Runge–Kutta pair RK5(4)7M of Dormand and Prince (1980), seven
 //! stages with the last stage reused as the first of the next step (FSAL),
 //! advanced with the 5th-order solution. The local error estimate
-//! `err = √(1/N·Σ(eᵢ/skᵢ)²)`, `skᵢ = atol + rtol·max(|yᵢ|, |ŷᵢ|)`, is kept at
+//! `err = √(1/N·Σ(eᵢ/skᵢ)²)`, `skᵢ = atol + rtol·max(|yᵢ|, |ŷᵢ|, mᵢ)` (`mᵢ`
+//! a typical magnitude the model may declare, 0 by default), is kept at
 //! or below 1 by a PI step-size controller (β = 0.04, safety 0.9, step ratio
 //! bounded to [0.2, 10]); the initial step is chosen by the algorithm of
 //! Hairer, Nørsett and Wanner, *Solving ODEs I*, 2nd ed., 1993, II.4
@@ -120,6 +121,19 @@ pub trait OdeSystem<const N: usize> {
     fn event_spec(&self, index: usize) -> EventSpec {
         let _ = index;
         EventSpec::default()
+    }
+
+    /// Typical magnitude of each state component (in its own unit): the
+    /// floor of the scale its local error is measured against,
+    /// `skᵢ = atol + rtol·max(|yᵢ|, |ŷᵢ|, mᵢ)`. Zero (the default) leaves
+    /// the pure mixed absolute/relative control. A component that starts
+    /// at zero and only accumulates (an energy integral) would otherwise be
+    /// held to `rtol` of its own tiny early values, forcing many small
+    /// steps that no printed figure needs; its magnitude (e.g. the energy
+    /// at contact) states what accuracy matters instead — the "typical y"
+    /// of Hairer–Nørsett–Wanner I, II.4 (scaling of the error norm).
+    fn magnitudes(&self) -> [f64; N] {
+        [0.0; N]
     }
 }
 
@@ -525,6 +539,7 @@ where
         *s = sys.event_spec(i);
     }
 
+    let mags = sys.magnitudes();
     let mut stats = Stats::default();
     let t_end = cfg.t_end;
     let mut t = t0;
@@ -543,7 +558,7 @@ where
 
     let mut h = match cfg.initial_step {
         Some(h) => h,
-        None => initial_step(sys, t, &y, &k1, cfg, &mut stats),
+        None => initial_step(sys, t, &y, &k1, &mags, cfg, &mut stats),
     };
     h = h.min(cfg.max_step);
     let want_dense = n_ev > 0 || obs.wants_steps();
@@ -601,7 +616,7 @@ where
 
         let mut err = 0.0;
         for i in 0..N {
-            let sk = cfg.atol + cfg.rtol * y[i].abs().max(y_new[i].abs());
+            let sk = cfg.atol + cfg.rtol * y[i].abs().max(y_new[i].abs()).max(mags[i]);
             let e =
                 h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i]);
             err += (e / sk) * (e / sk);
@@ -721,7 +736,10 @@ fn approx_pow(x: f64, p: f64) -> f64 {
     if !(-1000.0..=1000.0).contains(&y) {
         return x.powf(p);
     }
-    let k = y.floor();
+    // floor(y) for |y| ≤ 1000 by truncation (a library call on targets
+    // without a rounding instruction, e.g. baseline x86-64).
+    let whole = (y as i64) as f64;
+    let k = if whole > y { whole - 1.0 } else { whole };
     let g = (y - k) * std::f64::consts::LN_2;
     let two_f = 1.0
         + g * (1.0
@@ -800,6 +818,7 @@ fn initial_step<S, const N: usize>(
     t: f64,
     y: &[f64; N],
     f0: &[f64; N],
+    mags: &[f64; N],
     cfg: &SolverConfig,
     stats: &mut Stats,
 ) -> f64
@@ -810,7 +829,7 @@ where
     let mut dnf = 0.0;
     let mut dny = 0.0;
     for i in 0..N {
-        let sk = cfg.atol + cfg.rtol * y[i].abs();
+        let sk = cfg.atol + cfg.rtol * y[i].abs().max(mags[i]);
         dnf += (f0[i] / sk) * (f0[i] / sk);
         dny += (y[i] / sk) * (y[i] / sk);
     }
@@ -829,7 +848,7 @@ where
     stats.rhs_evaluations += 1;
     let mut der2 = 0.0;
     for i in 0..N {
-        let sk = cfg.atol + cfg.rtol * y[i].abs();
+        let sk = cfg.atol + cfg.rtol * y[i].abs().max(mags[i]);
         der2 += ((f1[i] - f0[i]) / sk) * ((f1[i] - f0[i]) / sk);
     }
     let der2 = der2.sqrt() / h;

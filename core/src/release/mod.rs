@@ -264,6 +264,38 @@ impl ReleaseOutcome {
         }
     }
 
+    /// The value of figure `id` as [`ReleaseOutcome::figures`] reports it,
+    /// in SI: `None` when that figure is missing (no contact, no stall, a
+    /// non-finite result) or is not one of these figures. The one place that
+    /// maps the figure ids to numbers: [`ReleaseOutcome::figures`] takes its
+    /// values from here, and the tolerance study reads them without building
+    /// the figures. A stalled part reaches the contact point with speed and
+    /// kinetic energy 0.
+    pub fn figure_value(&self, id: &str) -> Option<f64> {
+        let contact = matches!(self.end, ReleaseEnd::Contact);
+        let stalled = matches!(self.end, ReleaseEnd::Stall(_));
+        match id {
+            ids::RELEASE_EFFECTIVE_MASS => Some(self.hazard_mass),
+            ids::RELEASE_CONTACT_SPEED if contact => Some(self.hazard_speed()),
+            ids::RELEASE_KINETIC_ENERGY if contact => Some(self.kinetic_energy()),
+            ids::RELEASE_CONTACT_SPEED | ids::RELEASE_KINETIC_ENERGY if stalled => Some(0.0),
+            ids::RELEASE_TIME_TO_CONTACT if contact => Some(self.time),
+            ids::RELEASE_STALL_POSITION => match self.end {
+                ReleaseEnd::Stall(s) => Some(s.position),
+                _ => None,
+            },
+            ids::CLOSING_FORCE_STATIC => Some(self.closing_force_static),
+            _ => None,
+        }
+        .filter(|v| v.is_finite())
+    }
+
+    /// [`ReleaseOutcome::figure_value`], NaN when missing (which
+    /// [`Figure::new`] records as missing).
+    fn value_or_nan(&self, id: &str) -> f64 {
+        self.figure_value(id).unwrap_or(f64::NAN)
+    }
+
     /// The user-facing figures: effective mass, contact speed, kinetic
     /// energy, time to contact, stall position, static closing force.
     pub fn figures(&self) -> Vec<Figure> {
@@ -277,7 +309,7 @@ impl ReleaseOutcome {
             "m_eff = I/r² at the hazard point (½·I·ω² = ½·m_eff·v²)"
         };
         out.push(self.assumptions(
-            Figure::new(ids::RELEASE_EFFECTIVE_MASS, "Effective mass at the hazard point", Dim::Mass, self.hazard_mass)
+            Figure::new(ids::RELEASE_EFFECTIVE_MASS, "Effective mass at the hazard point", Dim::Mass, self.value_or_nan(ids::RELEASE_EFFECTIVE_MASS))
                 .method(mass_method)
                 .source("rigid-body kinetics (any dynamics textbook; common practice); Rayleigh spring-mass correction"),
         ));
@@ -287,19 +319,19 @@ impl ReleaseOutcome {
                     ids::RELEASE_CONTACT_SPEED,
                     "Speed at contact",
                     Dim::Speed,
-                    self.hazard_speed(),
+                    self.value_or_nan(ids::RELEASE_CONTACT_SPEED),
                 ),
                 Figure::new(
                     ids::RELEASE_KINETIC_ENERGY,
                     "Kinetic energy at contact",
                     Dim::Energy,
-                    self.kinetic_energy(),
+                    self.value_or_nan(ids::RELEASE_KINETIC_ENERGY),
                 ),
                 Figure::new(
                     ids::RELEASE_TIME_TO_CONTACT,
                     "Time from release to contact",
                     Dim::Time,
-                    self.time,
+                    self.value_or_nan(ids::RELEASE_TIME_TO_CONTACT),
                 ),
             ),
             ReleaseEnd::Stall(s) => {
@@ -320,14 +352,14 @@ impl ReleaseOutcome {
                         ids::RELEASE_CONTACT_SPEED,
                         "Speed at contact",
                         Dim::Speed,
-                        0.0,
+                        self.value_or_nan(ids::RELEASE_CONTACT_SPEED),
                     )
                     .assume(&note),
                     Figure::new(
                         ids::RELEASE_KINETIC_ENERGY,
                         "Kinetic energy at contact",
                         Dim::Energy,
-                        0.0,
+                        self.value_or_nan(ids::RELEASE_KINETIC_ENERGY),
                     )
                     .assume(&note),
                     Figure::missing(
@@ -393,7 +425,7 @@ impl ReleaseOutcome {
                     ids::RELEASE_STALL_POSITION,
                     "Stall position from the latch",
                     dim,
-                    s.position,
+                    self.value_or_nan(ids::RELEASE_STALL_POSITION),
                 )
                 .assume(&format!("main energy consumer: {}", s.cause.describe()));
                 if s.spring_exhausted {
@@ -417,7 +449,7 @@ impl ReleaseOutcome {
                 .method("standstill located by root finding on the dense output of the Dormand–Prince 5(4) solution")
                 .source(SRC),
         ));
-        let mut closing = Figure::new(ids::CLOSING_FORCE_STATIC, "Static force at the closing point", Dim::Force, self.closing_force_static)
+        let mut closing = Figure::new(ids::CLOSING_FORCE_STATIC, "Static force at the closing point", Dim::Force, self.value_or_nan(ids::CLOSING_FORCE_STATIC))
             .method("F = (Q_spring + Q_drive + Q_gravity − Q_friction)/r at the contact position (statics)")
             .source("statics (any mechanics textbook; common practice)")
             .assume("friction fully opposes the closing (the part arrived moving towards the closing point); with friction relaxed by vibration the force can rise by the friction share");
@@ -452,15 +484,18 @@ pub(crate) struct ReleaseOde<'m, 'a> {
     travel: f64,
     v_creep: f64,
     t_ref: f64,
+    /// Energy scale of the damping-work component (J): ½·M·v_ref².
+    e_ref: f64,
 }
 
 impl<'m, 'a> ReleaseOde<'m, 'a> {
     fn new(mech: &'m Mechanism<'a>, engaged: bool, v_ref: f64, t_ref: f64) -> Self {
         let mount = if engaged { mech.spring_mount() } else { None };
+        let inertia = mech.inertia(engaged);
         Self {
             mech,
             engaged,
-            inertia: mech.inertia(engaged),
+            inertia,
             ends: mount.map(|m| m.range_ends()).unwrap_or(RangeEnds {
                 low: f64::NEG_INFINITY,
                 high: f64::INFINITY,
@@ -470,6 +505,7 @@ impl<'m, 'a> ReleaseOde<'m, 'a> {
             travel: mech.travel(),
             v_creep: CREEP_FRACTION * v_ref,
             t_ref,
+            e_ref: 0.5 * inertia * v_ref * v_ref,
         }
     }
 
@@ -512,6 +548,11 @@ impl OdeSystem<3> for ReleaseOde<'_, '_> {
             EV_CONTACT => EventSpec::terminal(Direction::Rising),
             _ => EventSpec::terminal(Direction::Falling),
         }
+    }
+    /// The damping work starts at zero and only accumulates: its error is
+    /// measured against the release's reference energy ½·M·v_ref².
+    fn magnitudes(&self) -> [f64; 3] {
+        [0.0, 0.0, self.e_ref]
     }
 }
 

@@ -64,7 +64,9 @@ enum Mode<'a> {
 /// Reads numeric inputs; see the module doc.
 pub struct Reader<'a> {
     mode: Mode<'a>,
-    prefix: Vec<String>,
+    /// Dotted path of the current section (one buffer, truncated on the way
+    /// out of a section: no allocation per section once it has grown).
+    prefix: String,
     cursor: usize,
     /// Inputs met, in visiting order (record mode only).
     pub records: Vec<InputRecord>,
@@ -77,7 +79,7 @@ impl<'a> Reader<'a> {
     pub fn record() -> Reader<'static> {
         Reader {
             mode: Mode::Record,
-            prefix: Vec::new(),
+            prefix: String::new(),
             cursor: 0,
             records: Vec::new(),
             errors: Vec::new(),
@@ -88,7 +90,7 @@ impl<'a> Reader<'a> {
     pub fn replay(values: &'a [f64]) -> Reader<'a> {
         Reader {
             mode: Mode::Replay(values),
-            prefix: Vec::new(),
+            prefix: String::new(),
             cursor: 0,
             records: Vec::new(),
             errors: Vec::new(),
@@ -102,15 +104,20 @@ impl<'a> Reader<'a> {
 
     /// Read the inputs of a sub-structure with `name` added to the path.
     pub fn within<T>(&mut self, name: &str, f: impl FnOnce(&mut Self) -> T) -> T {
-        self.prefix.push(name.to_string());
+        let len = self.prefix.len();
+        if !self.prefix.is_empty() {
+            self.prefix.push('.');
+        }
+        self.prefix.push_str(name);
         let out = f(self);
-        self.prefix.pop();
+        self.prefix.truncate(len);
         out
     }
 
     /// Full dotted path of a field in the current section.
     pub fn path(&self, field: &str) -> String {
-        let mut p = self.prefix.join(".");
+        let mut p = String::with_capacity(self.prefix.len() + 1 + field.len());
+        p.push_str(&self.prefix);
         if !field.is_empty() {
             if !p.is_empty() {
                 p.push('.');
@@ -129,8 +136,8 @@ impl<'a> Reader<'a> {
     /// Record an error produced by a model constructor (its field is local to
     /// the current section).
     pub fn model_error(&mut self, e: InputError) {
-        let prefix = self.prefix.join(".");
-        self.errors.push(e.within(&prefix));
+        let e = e.within(&self.prefix);
+        self.errors.push(e);
     }
 
     /// Read a required numeric input. `None` when it cannot be used (the

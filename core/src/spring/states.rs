@@ -218,6 +218,41 @@ impl StatesReport {
         }
     }
 
+    /// The value of figure `id` as [`StatesReport::figures`] reports it, in
+    /// SI: `None` when that figure is missing (a state not marked, a
+    /// non-finite result) or is not one of these figures. The one place that
+    /// maps the figure ids to numbers: [`StatesReport::figures`] takes its
+    /// values from here, and the tolerance study reads them without building
+    /// the figures.
+    pub fn figure_value(&self, id: &str) -> Option<f64> {
+        let latched = self.latched.and_then(|i| self.states.get(i));
+        let released = self.released.and_then(|i| self.states.get(i));
+        match id {
+            ids::ENERGY_STORED_LATCHED => latched.map(|s| s.stored),
+            ids::ENERGY_RELEASED => latched
+                .zip(released)
+                .map(|(l, r)| released_value(l, r, &self.transitions)),
+            ids::ENERGY_RESIDUAL => released.map(|r| r.releasable),
+            ids::SPRING_FORCE_LATCHED => latched.map(|s| s.force_loading),
+            ids::SPRING_FORCE_RELEASED => released.map(|s| s.force_unloading),
+            ids::SPRING_RATE => self.rate_latched,
+            ids::SPRING_SHEAR_STRESS => self
+                .stress_latched
+                .as_ref()
+                .filter(|st| st.kind == StressKind::Shear)
+                .map(|st| st.stress),
+            ids::SPRING_STRESS_RATIO => self.stress_latched.as_ref().and_then(|st| st.ratio),
+            _ => None,
+        }
+        .filter(|v| v.is_finite())
+    }
+
+    /// [`StatesReport::figure_value`], NaN when missing (which
+    /// [`Figure::new`] records as missing).
+    fn value_or_nan(&self, id: &str) -> f64 {
+        self.figure_value(id).unwrap_or(f64::NAN)
+    }
+
     /// The assessment figures: stored, released and residual energy, forces
     /// in the latched and released states, rate and stress at the latched
     /// state. Figures that need a latched or released state which was not
@@ -235,11 +270,11 @@ impl StatesReport {
         let law = &self.law.formula;
         let from_free = "energy counted from the free state (deflection 0)";
         out.push(match latched {
-            Some(s) => Figure::new(
+            Some(_) => Figure::new(
                 ids::ENERGY_STORED_LATCHED,
                 "Energy stored when latched",
                 Dim::Energy,
-                s.stored,
+                self.value_or_nan(ids::ENERGY_STORED_LATCHED),
             )
             .method(&format!("W = ∫₀^q F_load dq; {law}"))
             .source(&source)
@@ -253,11 +288,11 @@ impl StatesReport {
             ),
         });
         out.push(match (latched, released) {
-            (Some(l), Some(r)) => Figure::new(
+            (Some(_), Some(_)) => Figure::new(
                 ids::ENERGY_RELEASED,
                 "Energy released from latch to stop",
                 Dim::Energy,
-                released_value(l, r, &self.transitions),
+                self.value_or_nan(ids::ENERGY_RELEASED),
             )
             .method(&format!("W = ∫_q_stop^q_latch F_unload dq; {law}"))
             .source(&source)
@@ -270,7 +305,7 @@ impl StatesReport {
             ),
         });
         out.push(match released {
-            Some(r) => Figure::new(ids::ENERGY_RESIDUAL, "Residual energy on the stop", Dim::Energy, r.releasable)
+            Some(r) => Figure::new(ids::ENERGY_RESIDUAL, "Residual energy on the stop", Dim::Energy, self.value_or_nan(ids::ENERGY_RESIDUAL))
                 .method(&format!("W = ∫₀^q_stop F_unload dq; {law}"))
                 .source(&source)
                 .assume("energy given back if the stop were removed and the spring relaxed to free: block or release it before work")
@@ -285,7 +320,7 @@ impl StatesReport {
                 ids::SPRING_FORCE_LATCHED,
                 "Spring force when latched",
                 force_dim,
-                s.force_loading,
+                self.value_or_nan(ids::SPRING_FORCE_LATCHED),
             )
             .method(law)
             .source(&source)
@@ -306,7 +341,7 @@ impl StatesReport {
                 ids::SPRING_FORCE_RELEASED,
                 "Spring force on the stop",
                 force_dim,
-                s.force_unloading,
+                self.value_or_nan(ids::SPRING_FORCE_RELEASED),
             )
             .method(law)
             .source(&source)
@@ -323,9 +358,14 @@ impl StatesReport {
             ),
         });
         out.push(match self.rate_latched {
-            Some(k) => Figure::new(ids::SPRING_RATE, "Spring rate at the latch", rate_dim, k)
-                .method("k = dF/dq on the loading branch")
-                .source(&source),
+            Some(_) => Figure::new(
+                ids::SPRING_RATE,
+                "Spring rate at the latch",
+                rate_dim,
+                self.value_or_nan(ids::SPRING_RATE),
+            )
+            .method("k = dF/dq on the loading branch")
+            .source(&source),
             None => Figure::missing(
                 ids::SPRING_RATE,
                 "Spring rate at the latch",
@@ -339,7 +379,7 @@ impl StatesReport {
                     ids::SPRING_SHEAR_STRESS,
                     "Corrected shear stress when latched",
                     Dim::Pressure,
-                    st.stress,
+                    self.value_or_nan(ids::SPRING_SHEAR_STRESS),
                 )
                 .method(&st.method)
                 .source(&st.source);
@@ -353,9 +393,14 @@ impl StatesReport {
                 StressKind::Bending => "Bending stress / permissible when latched",
             };
             out.push(match st.ratio {
-                Some(r) => Figure::new(ids::SPRING_STRESS_RATIO, label, Dim::Ratio, r)
-                    .method(&st.method)
-                    .source(&st.source),
+                Some(_) => Figure::new(
+                    ids::SPRING_STRESS_RATIO,
+                    label,
+                    Dim::Ratio,
+                    self.value_or_nan(ids::SPRING_STRESS_RATIO),
+                )
+                .method(&st.method)
+                .source(&st.source),
                 None => Figure::missing(
                     ids::SPRING_STRESS_RATIO,
                     label,

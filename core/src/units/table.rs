@@ -388,7 +388,12 @@ pub fn units_of(dim: Dim) -> impl Iterator<Item = &'static Unit> {
 /// expected: `N·m` is a torque in a torque field and an energy in an energy
 /// field; `g` is a gram in a mass field and g_n in an acceleration field.
 pub fn find_in(dim: Dim, text: &str) -> Option<&'static Unit> {
-    units_of(dim).find(|u| u.is_spelled(text))
+    // An exact spelling first (the usual case: `kg`, `mm`, `N/mm`), a plain
+    // string comparison; no spelling names two units of one kind (tested
+    // below), so it finds the unit the normalised comparison would.
+    units_of(dim)
+        .find(|u| u.spellings().any(|s| s == text))
+        .or_else(|| units_of(dim).find(|u| u.is_spelled(text)))
 }
 
 /// Every unit, of any kind, spelled `text`.
