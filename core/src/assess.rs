@@ -192,6 +192,12 @@ fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
         contact_index,
         states: out.states.and_then(Result::ok),
         sizing: out.sizing,
+        identification_comparison: model
+            .identification
+            .as_ref()
+            .zip(model.identification_check.as_ref())
+            .map(|(a, b)| crate::identify::compare(a, b)),
+        identification_check: model.identification_check,
         identification: model.identification,
         study: None,
     })
@@ -981,6 +987,25 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
         ));
         fig.assumptions.extend(est.notes.iter().cloned());
         f.push(fig);
+        if let Some(check) = &model.identification_check {
+            let mut fig = Figure::new(
+                crate::identify::ids::IDENTIFY_RATE_CHECK,
+                "Spring rate by the cross-check method",
+                Dim::LinearRate,
+                check.rate.value,
+            )
+            .method(&check.formula)
+            .source("GUM first-order propagation (JCGM 100:2008, 5.1.2)")
+            .assume(&format!("method: {}", check.method.describe()))
+            .assume(&check.rate.budget_line())
+            .assume("a cross-check only: the figures above use the first method's rate");
+            fig.assumptions.extend(check.notes.iter().cloned());
+            f.push(fig);
+            let comparison = crate::identify::compare(est, check);
+            if comparison.normalized_error.is_finite() {
+                f.extend(comparison.figures());
+            }
+        }
     }
     f
 }

@@ -207,6 +207,7 @@ pub fn model(k: &str) -> SpringModelInput {
         }),
         "measured" => SpringModelInput::Measured(MeasuredInput {
             method: identify("static"),
+            cross_check: None,
             max_deflection: b(),
         }),
         "series" => SpringModelInput::Series {

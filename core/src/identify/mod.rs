@@ -37,6 +37,8 @@ use serde::{Deserialize, Serialize};
 pub mod ids {
     /// Identified spring rate (N/m).
     pub const IDENTIFY_RATE: &str = "identify.rate";
+    /// Spring rate from the second (cross-check) method (N/m).
+    pub const IDENTIFY_RATE_CHECK: &str = "identify.rate_check";
     /// Length at which the gauged force extrapolates to zero (m).
     pub const IDENTIFY_FREE_LENGTH: &str = "identify.free_length";
     /// Force at the requested installed length (N).

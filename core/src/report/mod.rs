@@ -61,6 +61,11 @@ pub struct Report {
     pub sizing: Vec<SizingOutcome>,
     /// Field identification of the spring, when used.
     pub identification: Option<RateEstimate>,
+    /// A second identification of the same spring, when given.
+    pub identification_check: Option<RateEstimate>,
+    /// The two identifications compared: agreement within 2 combined
+    /// standard uncertainties, else the likely causes.
+    pub identification_comparison: Option<crate::identify::Comparison>,
     /// Tolerance study, when run.
     pub study: Option<StudyReport>,
 }

@@ -623,6 +623,9 @@ fn normalise(path: &str) -> String {
     if let Some(rest) = p.strip_prefix("contact.law.model.") {
         p = format!("spring.model.{rest}");
     }
+    if let Some(rest) = p.strip_prefix("spring.model.cross_check.") {
+        p = format!("spring.model.method.{rest}");
+    }
     p
 }
 

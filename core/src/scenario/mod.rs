@@ -395,6 +395,11 @@ schema_attr! {
     pub struct MeasuredInput {
         /// How the rate was measured.
         pub method: IdentifyInput,
+        /// A second measurement of the same spring by another method, to
+        /// compare with (disagreement beyond 2 combined standard
+        /// uncertainties is flagged with its likely causes).
+        #[serde(default)]
+        pub cross_check: Option<IdentifyInput>,
         /// Largest admissible deflection (mm).
         pub max_deflection: Value,
     }

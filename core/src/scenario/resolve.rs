@@ -29,6 +29,15 @@ use crate::spring::{
 use crate::units::Dim;
 use std::f64::consts::PI;
 
+/// Field identifications met while reading the spring.
+#[derive(Debug, Clone, Default)]
+pub struct Identified {
+    /// The method the rate is taken from.
+    pub primary: Option<RateEstimate>,
+    /// A second method on the same spring, for comparison.
+    pub check: Option<RateEstimate>,
+}
+
 /// Default unit of a bare number, per kind of quantity.
 pub fn default_unit(dim: Dim) -> &'static str {
     match dim {
@@ -80,6 +89,8 @@ pub struct Model {
     pub cycles_per_hour: Option<f64>,
     /// Field identification of the spring, when used.
     pub identification: Option<RateEstimate>,
+    /// A second identification of the same spring, to compare with.
+    pub identification_check: Option<RateEstimate>,
 }
 
 /// What moves, in SI.
@@ -288,7 +299,7 @@ pub struct LimitsModel {
 pub fn resolve(s: &Scenario, r: &mut Reader<'_>) -> Model {
     let part = r.within("part", |r| part(&s.part, r));
     let is_rotating = matches!(s.part, PartInput::Rotating(_));
-    let mut identification = None;
+    let mut identification = Identified::default();
     let spring = match &s.spring {
         None => None,
         Some(sp) => r.within("spring", |r| {
@@ -346,7 +357,8 @@ pub fn resolve(s: &Scenario, r: &mut Reader<'_>) -> Model {
         limits,
         sizing,
         cycles_per_hour,
-        identification,
+        identification: identification.primary,
+        identification_check: identification.check,
     }
 }
 
@@ -536,7 +548,7 @@ fn inertia(i: &InertiaInput, r: &mut Reader<'_>) -> Option<InertiaSpec> {
 fn spring_model(
     m: &SpringModelInput,
     r: &mut Reader<'_>,
-    identification: &mut Option<RateEstimate>,
+    identification: &mut Identified,
 ) -> Option<SpringModel> {
     let spec = spring_spec(m, r, identification)?;
     match spec.build() {
@@ -553,7 +565,7 @@ fn spring_model(
 fn spring_spec(
     m: &SpringModelInput,
     r: &mut Reader<'_>,
-    identification: &mut Option<RateEstimate>,
+    identification: &mut Identified,
 ) -> Option<SpringSpec> {
     match m {
         SpringModelInput::Linear {
@@ -801,6 +813,10 @@ fn spring_spec(
         }
         SpringModelInput::Measured(mi) => {
             let est = r.within("method", |r| identify_rate(&mi.method, r));
+            let check = mi
+                .cross_check
+                .as_ref()
+                .and_then(|c| r.within("cross_check", |r| identify_rate(c, r)));
             let q = num(
                 r,
                 "max_deflection",
@@ -815,7 +831,8 @@ fn spring_spec(
             let tol = (u > 0.0 && u.is_finite()).then_some(TolText::Absolute(3.0 * u));
             let k = r.derived("rate", Dim::LinearRate, est.rate.value, tol, Rule::Positive);
             if !r.is_replay() {
-                *identification = Some(est);
+                identification.primary = Some(est);
+                identification.check = check;
             }
             Some(SpringSpec::Linear(LinearSpec {
                 rate: k?,
@@ -1152,7 +1169,7 @@ fn buffer_law(l: &BufferLawInput, r: &mut Reader<'_>) -> Option<LawModel> {
             model,
             preload_deflection,
         } => {
-            let mut ident = None;
+            let mut ident = Identified::default();
             let spring = r.within("model", |r| spring_model(model, r, &mut ident));
             let pre = or(
                 r,

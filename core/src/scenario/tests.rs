@@ -239,3 +239,70 @@ fn an_unusable_optional_input_removes_what_depends_on_it_not_more() {
         speed.missing
     );
 }
+
+/// Field identification with a cross-check by a second method: the rate
+/// used is the first method's; the second is reported beside it with the
+/// agreement test E = |k_a − k_b|/√(u_a² + u_b²) ≤ 2 (JCGM 100:2008 6.3.3).
+/// The spring is 1000 N/m: 2 kg sags m·g/k = 19.6133 mm (g_n, NIST SP 330)
+/// and oscillates with T = 2π·√(m/k) = 0.280993 s (SDOF, spring mass left
+/// out), both derived here from the closed forms.
+#[test]
+fn a_cross_check_by_a_second_method_is_compared_not_used() {
+    let measured = |time: &str| {
+        SpringModelInput::Measured(MeasuredInput {
+            method: IdentifyInput::Static {
+                mass: Value::new("2 kg"),
+                sag: Value::new("19.6133 mm"),
+                resolution: Value::new("0.05 mm"),
+            },
+            cross_check: Some(IdentifyInput::Dynamic {
+                mass: Value::new("2 kg"),
+                oscillations: Value::new("20"),
+                time: Value::new(time),
+                timing_uncertainty: Some(Value::new("0.05 s")),
+                spring_mass: None,
+            }),
+            max_deflection: Value::new("60 mm"),
+        })
+    };
+    let with = |time: &str| {
+        let mut s = demos::ejector();
+        if let Some(sp) = &mut s.spring {
+            sp.model = measured(time);
+        }
+        assess(&s).unwrap()
+    };
+    // Agreement: 20 periods of 0.280993 s.
+    let r = with("5.61986 s");
+    assert!(r.errors.is_empty(), "{:?}", r.errors);
+    let k = r.value(crate::identify::ids::IDENTIFY_RATE).unwrap();
+    let k2 = r.value(crate::identify::ids::IDENTIFY_RATE_CHECK).unwrap();
+    assert!((k - 1000.0).abs() < 0.5, "{k}");
+    assert!((k2 - 1000.0).abs() < 0.5, "{k2}");
+    let c = r.identification_comparison.as_ref().unwrap();
+    assert!(!c.disagree && c.likely_causes.is_empty(), "{c:?}");
+    // A slow count (6.5 s: k ≈ 747 N/m) disagrees, and the causes say why.
+    let r = with("6.5 s");
+    let c = r.identification_comparison.as_ref().unwrap();
+    assert!(c.disagree, "{c:?}");
+    assert!(c
+        .likely_causes
+        .iter()
+        .any(|x| x.cause == crate::identify::LikelyCause::SpringMassIgnored));
+    let e = r
+        .value(crate::identify::ids::IDENTIFY_DISAGREEMENT)
+        .unwrap();
+    assert!(e > 2.0, "{e}");
+    // The figures use the first method's rate, not the cross-check.
+    assert!((r.value(crate::identify::ids::IDENTIFY_RATE).unwrap() - 1000.0).abs() < 0.5);
+    // A broken cross-check names its field and leaves the first rate alone.
+    let r = with("fast");
+    assert!(
+        r.errors
+            .iter()
+            .any(|e| e.field == "spring.model.cross_check.time"),
+        "{:?}",
+        r.errors
+    );
+    assert!(r.value(crate::identify::ids::IDENTIFY_RATE).is_some());
+}
