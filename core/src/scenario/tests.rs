@@ -172,3 +172,81 @@ fn an_older_schema_version_in_memory_is_refused_not_misread() {
     s.schema_version = 99;
     assert!(assess(&s).is_err());
 }
+
+#[test]
+fn files_in_another_encoding_or_too_large_are_refused_with_the_reason() {
+    let text = demos::ejector().to_json();
+    // A UTF-8 byte-order mark (Windows editors write one) is skipped.
+    let with_bom = [b"\xEF\xBB\xBF".as_slice(), text.as_bytes()].concat();
+    assert!(Scenario::from_bytes(&with_bom).is_ok());
+    assert!(Scenario::from_json(&format!("\u{feff}{text}")).is_ok());
+    let utf16: Vec<u8> = "\u{feff}{}"
+        .encode_utf16()
+        .flat_map(u16::to_le_bytes)
+        .collect();
+    let e = Scenario::from_bytes(&utf16).unwrap_err();
+    assert!(e.message.contains("UTF-16"), "{e}");
+    // Latin-1 writes the ejector's "±" (UTF-8 C2 B1) as the single byte B1.
+    let mut bytes = text.clone().into_bytes();
+    let at = bytes.windows(2).position(|w| w == [0xC2, 0xB1]).unwrap();
+    bytes.remove(at);
+    let e = Scenario::from_bytes(&bytes).unwrap_err();
+    assert!(
+        e.message.contains("not UTF-8") && e.message.contains("0xB1"),
+        "{e}"
+    );
+    let big = vec![b' '; MAX_FILE_BYTES + 1];
+    let e = Scenario::from_bytes(&big).unwrap_err();
+    assert!(e.message.contains("at most 4 MB"), "{e}");
+    assert!(Scenario::from_bytes(b"")
+        .unwrap_err()
+        .message
+        .contains("empty"));
+}
+
+#[test]
+fn truncated_and_deeply_nested_files_say_so() {
+    let text = demos::guard_door().to_json();
+    let e = Scenario::from_json(text.get(..text.len() / 2).unwrap_or("")).unwrap_err();
+    assert!(e.message.contains("ends before"), "{e}");
+    let deep = format!("{}{}", "[".repeat(10_000), "]".repeat(10_000));
+    let e = Scenario::from_json(&deep).unwrap_err();
+    assert!(e.message.contains("nested deeper"), "{e}");
+}
+
+#[test]
+fn errors_inside_a_tagged_choice_name_the_exact_field() {
+    let base: serde_json::Value = serde_json::from_str(&demos::guard_door().to_json()).unwrap();
+    let cases = [
+        (
+            "/part/travel/text",
+            serde_json::json!(5),
+            "part.travel.text",
+        ),
+        (
+            "/contact/region",
+            serde_json::json!("elbow"),
+            "contact.region",
+        ),
+        (
+            "/spring/model/rate/tol",
+            serde_json::json!(3),
+            "spring.model.rate.tol",
+        ),
+        (
+            "/gap/body_parts/1",
+            serde_json::json!(42),
+            "gap.body_parts.1",
+        ),
+    ];
+    for (pointer, wrong, want) in cases {
+        let mut v = base.clone();
+        *v.pointer_mut(pointer).unwrap() = wrong;
+        let e = Scenario::from_json(&v.to_string()).unwrap_err();
+        assert_eq!(e.path, want, "{e}");
+    }
+    let mut v = base.clone();
+    v["part"]["inertia"]["mass"]["unit"] = serde_json::json!("kg");
+    let e = Scenario::from_json(&v.to_string()).unwrap_err();
+    assert_eq!(e.path, "part.inertia.mass.unit", "{e}");
+}

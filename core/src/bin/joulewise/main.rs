@@ -194,15 +194,17 @@ impl PartialEq for BatchFormat {
     }
 }
 
-fn read_input(file: &str) -> Result<String> {
+/// The bytes of a scenario file (`-`: standard input); their encoding is
+/// checked by `Scenario::from_bytes`, which names what is wrong.
+fn read_input(file: &str) -> Result<Vec<u8>> {
     if file == "-" {
-        let mut s = String::new();
+        let mut b = Vec::new();
         std::io::stdin()
-            .read_to_string(&mut s)
+            .read_to_end(&mut b)
             .context("reading standard input")?;
-        Ok(s)
+        Ok(b)
     } else {
-        std::fs::read_to_string(file).with_context(|| format!("reading {file}"))
+        std::fs::read(file).with_context(|| format!("reading {file}"))
     }
 }
 
@@ -216,8 +218,8 @@ fn verdict_code(r: &Report) -> u8 {
 }
 
 fn assess_cmd(file: &str, format: Format, study: bool, units: Option<Units>) -> Result<u8> {
-    let text = read_input(file)?;
-    let scenario = match Scenario::from_json(&text) {
+    let bytes = read_input(file)?;
+    let scenario = match Scenario::from_bytes(&bytes) {
         Ok(s) => s,
         Err(e) => {
             eprintln!("joulewise: {file}: {e}");

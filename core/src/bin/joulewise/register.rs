@@ -603,9 +603,9 @@ fn scenario_from_row(cell: &Row<'_>, base: &Path) -> Result<Scenario> {
     let file = cell.get("scenario_file");
     if !file.is_empty() {
         let path: PathBuf = base.join(file);
-        let text = std::fs::read_to_string(&path)
-            .with_context(|| format!("scenario_file {}", path.display()))?;
-        return Scenario::from_json(&text)
+        let bytes =
+            std::fs::read(&path).with_context(|| format!("scenario_file {}", path.display()))?;
+        return Scenario::from_bytes(&bytes)
             .map_err(|e| anyhow::anyhow!("scenario_file {}: {e}", path.display()));
     }
     let rotating = match cell.get("part") {
