@@ -1315,6 +1315,13 @@ const STUDY_FIGURES: &[&str] = &[
     ids::GAP_CLOSING_GAP,
 ];
 
+// The largest study a scenario may ask for fits the Monte Carlo memory
+// bound, so a valid request is never dropped.
+const _: () = assert!(
+    crate::scenario::MAX_STUDY_SAMPLES as usize * STUDY_FIGURES.len()
+        <= crate::tolerance::monte_carlo::MAX_STORED_VALUES
+);
+
 /// A tolerance study in progress: worst-case corners first, then the Monte
 /// Carlo samples, advanced in slices so a browser can show progress.
 pub struct Study {

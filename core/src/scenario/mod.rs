@@ -828,6 +828,12 @@ fn extension_curve() -> ForceReference {
 fn default_seating() -> Seating {
     Seating::BothFixed
 }
+/// Most Monte Carlo samples a scenario may ask for: every sample of every
+/// figure the study follows is kept for exact percentiles, and 500 000 ×
+/// the followed figures stays within the study's memory bound (checked at
+/// compile time in `assess`). More samples would be silently skipped.
+pub const MAX_STUDY_SAMPLES: u32 = 500_000;
+
 fn default_samples() -> u32 {
     10_000
 }

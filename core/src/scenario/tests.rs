@@ -250,3 +250,34 @@ fn errors_inside_a_tagged_choice_name_the_exact_field() {
     let e = Scenario::from_json(&v.to_string()).unwrap_err();
     assert_eq!(e.path, "part.inertia.mass.unit", "{e}");
 }
+
+#[test]
+fn a_study_asking_for_too_many_samples_says_so() {
+    for samples in [0, MAX_STUDY_SAMPLES + 1, u32::MAX] {
+        let mut s = demos::carriage_stop();
+        s.study.samples = samples;
+        let r = assess(&s).unwrap();
+        assert!(
+            r.errors.iter().any(|e| e.field == "study.samples"),
+            "{samples}: {:?}",
+            r.errors
+        );
+    }
+    let mut s = demos::carriage_stop();
+    s.study.samples = 2_000;
+    assert!(assess(&s).unwrap().errors.is_empty());
+}
+
+#[test]
+fn absurd_and_non_finite_texts_are_input_errors_naming_the_field() {
+    for text in ["NaN", "inf", "-inf", "∞", "1e300 kg", "1e13", "1e-20 kg"] {
+        let mut s = demos::carriage_stop();
+        if let PartInput::Translating(t) = &mut s.part {
+            t.mass = Value::new(text);
+        }
+        let r = assess(&s).unwrap();
+        assert_eq!(r.errors.len(), 1, "{text}: {:?}", r.errors);
+        assert_eq!(r.errors[0].field, "part.mass", "{text}");
+        assert!(r.value(ids::RELEASE_CONTACT_SPEED).is_none(), "{text}");
+    }
+}
