@@ -959,10 +959,12 @@ impl Scenario {
     /// version (no migration).
     ///
     /// # Errors
-    /// A field of the wrong type or shape, named by its path.
+    /// A field of the wrong type or shape, named by its path; a format
+    /// version other than [`SCHEMA_VERSION`] (such a value must go through
+    /// [`Scenario::from_json`], which migrates older versions).
     pub fn from_value(value: serde_json::Value) -> Result<Scenario, FileError> {
         let copy = value.clone();
-        serde_path_to_error::deserialize(value).map_err(|e| {
+        let s: Scenario = serde_path_to_error::deserialize(value).map_err(|e| {
             // Dotted like the input errors' paths (`states.0.deflection`),
             // not serde's `states[0].deflection`.
             let path = e
@@ -982,7 +984,18 @@ impl Scenario {
             // key or value below it.
             let path = refine_path(&copy, &path, &message).unwrap_or(path);
             FileError { path, message }
-        })
+        })?;
+        if s.schema_version != SCHEMA_VERSION {
+            return Err(FileError {
+                path: "schema_version".into(),
+                message: format!(
+                    "format version {} where version {SCHEMA_VERSION} was expected; \
+                     read files with Scenario::from_json, which upgrades older versions",
+                    s.schema_version
+                ),
+            });
+        }
+        Ok(s)
     }
 
     /// The scenario as pretty JSON with the SI value of every input filled

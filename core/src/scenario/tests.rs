@@ -281,3 +281,14 @@ fn absurd_and_non_finite_texts_are_input_errors_naming_the_field() {
         assert!(r.value(ids::RELEASE_CONTACT_SPEED).is_none(), "{text}");
     }
 }
+
+/// Found by the structure-aware fuzz target: `from_value` let a scenario of
+/// another format version through, and `assess` then refused it; the
+/// refusal now comes where the value is read, naming the field.
+#[test]
+fn from_value_refuses_another_format_version() {
+    let mut v = serde_json::to_value(demos::ejector()).unwrap();
+    v["schema_version"] = serde_json::json!(0);
+    let e = Scenario::from_value(v).unwrap_err();
+    assert_eq!(e.path, "schema_version", "{e}");
+}
