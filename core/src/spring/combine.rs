@@ -83,7 +83,7 @@ impl SpringSpec {
                 .map(|(i, s)| s.build().map_err(|e| e.within(&format!("members.{i}"))))
                 .collect()
         };
-        Ok(match self {
+        let model = match self {
             SpringSpec::Linear(s) => SpringModel::Linear(LinearSpring::new(s.clone())?),
             SpringSpec::Helical(s) => SpringModel::Helical(HelicalSpring::new(s.clone())?),
             SpringSpec::Extension(s) => SpringModel::Extension(ExtensionSpring::new(s.clone())?),
@@ -95,8 +95,43 @@ impl SpringSpec {
             SpringSpec::Parallel { members: m } => {
                 SpringModel::Parallel(Parallel::new(members(m)?)?)
             }
-        })
+        };
+        check_finite_over_range(&model)?;
+        Ok(model)
     }
+}
+
+/// Refuse a model whose force or energy over its admissible range is not a
+/// finite number: inputs that each pass their own check can still be of a
+/// size whose products overflow (a stroke of 1e308 m, a rate of 1e300 N/m
+/// over a long travel). The error names the input most likely at fault.
+fn check_finite_over_range(model: &SpringModel) -> Result<(), InputError> {
+    let (lo, hi) = model.deflection_range();
+    let mid = lo + 0.5 * (hi - lo);
+    let finite = [lo, mid, hi].into_iter().all(|q| {
+        [Travel::Loading, Travel::Unloading].into_iter().all(|t| {
+            q.is_finite()
+                && model.force(q, t).is_finite()
+                && model.work(lo, q, t).is_finite()
+                && model.rate(q).is_finite()
+        })
+    }) && model.effective_mass().is_finite();
+    if finite {
+        return Ok(());
+    }
+    let field = match model {
+        SpringModel::Linear(_) | SpringModel::Extension(_) | SpringModel::Torsion(_) => "rate",
+        SpringModel::Helical(_) => "wire_diameter",
+        SpringModel::Gas(_) => "stroke",
+        SpringModel::Disc(_) => "thickness",
+        SpringModel::Table(_) => "loading",
+        SpringModel::Series(_) | SpringModel::Parallel(_) => "members",
+    };
+    Err(InputError::invalid(
+        field,
+        "the force or stored energy over the spring's range is not a finite number: \
+         check the sizes and units of its inputs",
+    ))
 }
 
 /// Any validated spring; implements [`Spring`] by delegation.
