@@ -128,7 +128,7 @@ pub fn dynamic_rate(input: &DynamicInput) -> Result<RateEstimate, InputError> {
                 basis: "as entered".into(),
             },
         ],
-    );
+    )?;
     let mut notes = Vec::new();
     if input.spring_mass.is_none() {
         notes.push(
@@ -161,7 +161,7 @@ pub fn dynamic_rate(input: &DynamicInput) -> Result<RateEstimate, InputError> {
 pub fn oscillation_frequency(input: &DynamicInput) -> Result<Estimate, InputError> {
     let c = checked(input)?;
     let n = c.n;
-    Ok(propagate(
+    propagate(
         |x| n / x[0],
         &[In {
             name: "time",
@@ -169,7 +169,7 @@ pub fn oscillation_frequency(input: &DynamicInput) -> Result<Estimate, InputErro
             u: c.ut,
             basis: c.timing_basis,
         }],
-    ))
+    )
 }
 
 #[cfg(test)]
