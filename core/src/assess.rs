@@ -123,6 +123,9 @@ struct Outcome {
     clamping: Option<Result<ClampingOutcome, InputError>>,
     gap: Option<Result<ClosingGap, InputError>>,
     sizing: Vec<SizingOutcome>,
+    /// The buffer's inputs, each valid, do not make a buffer together (a
+    /// preload outside a measured table): an input error for the report.
+    buffer_error: Option<InputError>,
     /// Forces at the contact point (hazard point, N): spring, gravity,
     /// drive, friction.
     contact_forces: Option<[f64; 4]>,
@@ -158,7 +161,11 @@ fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
     let mut r = Reader::record();
     let model = resolve(s, &mut r);
     let out = evaluate(&model, detail);
-    let mut figures = figures(&model, &out, &r.errors);
+    // A buffer whose inputs do not fit together is an input error like any
+    // other: beside its field, and the reason its figures are missing.
+    let mut errors = r.errors;
+    errors.extend(out.buffer_error.clone());
+    let mut figures = figures(&model, &out, &errors);
     let checks = checks(&model, &out, &figures);
     add_check_figures(&mut figures, &checks);
     let cautions = cautions_for(&figures, &checks);
@@ -176,7 +183,7 @@ fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
         identity: s.identity.clone(),
         display_units: s.display_units,
         inputs: r.records.iter().map(input_line).collect(),
-        errors: r.errors,
+        errors,
         figures,
         checks,
         cautions,
@@ -395,7 +402,17 @@ fn buffer_of(b: &BufferModel) -> Result<Buffer<'_>, InputError> {
             None => Rebound::Elastic,
         },
     })
-    .map_err(|e| e.within("contact.law"))
+    // The buffer names its fields `law.…`, `count` and `rebound`; the
+    // scenario calls them `contact.law.…`, `contact.count` and
+    // `contact.restitution`, and a buffer's spring `contact.law.model`.
+    .map_err(|mut e| {
+        e.field = match e.field.as_str() {
+            "rebound" => "restitution".into(),
+            "law.spring" => "law.model".into(),
+            _ => e.field,
+        };
+        e.within("contact")
+    })
 }
 
 /// Spring deflection (m or rad) of a mount at part position `q`, kept in the
@@ -519,8 +536,7 @@ fn evaluate(model: &Model, detail: Detail) -> Outcome {
         }
         Some(Err(e)) => {
             out.release = Some(release(&mech, &rcfg).map_err(|e| e.to_string()));
-            out.notes
-                .push(format!("The buffer cannot be modelled: {e}"));
+            out.buffer_error = Some(e);
         }
         None => out.release = Some(release(&mech, &rcfg).map_err(|e| e.to_string())),
     }

@@ -292,3 +292,41 @@ fn from_value_refuses_another_format_version() {
     let e = Scenario::from_value(v).unwrap_err();
     assert_eq!(e.path, "schema_version", "{e}");
 }
+
+/// Found by the structure-aware fuzz target: a measured-table buffer whose
+/// unloading curve starts at 20 mm, with a 1 mm preload, cannot be built;
+/// the impact figures were missing without a reason and the error sat in
+/// the notes under `contact.law.law.preload_deflection`. It is now an input
+/// error on `contact.law.preload_deflection` and the reason the impact
+/// figures are missing.
+#[test]
+fn a_buffer_whose_inputs_do_not_fit_together_is_an_input_error() {
+    let mut s = demos::carriage_stop();
+    let pt = |q: &str, f: &str| PointInput {
+        deflection: Value::new(q),
+        force: Value::new(f),
+    };
+    s.contact = ContactInput::Buffer(BufferInput {
+        law: BufferLawInput::Spring {
+            model: SpringModelInput::Table(TableInput {
+                axis: crate::spring::Axis::Linear,
+                loading: vec![pt("0", "0"), pt("20", "2000"), pt("40", "9000")],
+                unloading: vec![pt("20", "800"), pt("40", "6000")],
+            }),
+            preload_deflection: Some(Value::new("1 mm")),
+        },
+        count: 1,
+        restitution: None,
+        radius: None,
+    });
+    let r = assess(&s).unwrap();
+    assert_eq!(r.errors.len(), 1, "{:?}", r.errors);
+    assert_eq!(r.errors[0].field, "contact.law.preload_deflection");
+    let f = r.figure(ids::IMPACT_PEAK_FORCE).unwrap();
+    assert!(f.value.is_none());
+    assert!(
+        f.missing.iter().any(|m| m.contains("preload_deflection")),
+        "{:?}",
+        f.missing
+    );
+}
