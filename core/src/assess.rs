@@ -1137,7 +1137,7 @@ fn time_force_above(imp: &ImpactOutcome, threshold: f64) -> f64 {
     let h = &imp.history;
     let mut total = 0.0;
     for w in h.windows(2) {
-        let (a, b) = (&w[0], &w[1]);
+        let [a, b] = w else { continue };
         let (fa, fb) = (a.buffer_force - threshold, b.buffer_force - threshold);
         let dt = b.time - a.time;
         if dt.is_nan() || dt <= 0.0 {

@@ -8,6 +8,7 @@
 //!
 //! Only the package registries are used (crates.io, npm, Debian); no tool is
 //! ever downloaded from anywhere else.
+#![forbid(unsafe_code)]
 
 mod serve;
 mod steps;

@@ -17,6 +17,10 @@
 //! Light damping lengthens the period by a negligible amount (second order
 //! in the damping ratio).
 
+// The propagated functions index the input vector built beside them, of a
+// length fixed in the same call.
+#![allow(clippy::indexing_slicing)]
+
 use super::{propagate, Estimate, In, Method, RateEstimate};
 use crate::error::{check, InputError};
 use serde::{Deserialize, Serialize};

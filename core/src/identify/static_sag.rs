@@ -14,6 +14,10 @@
 //! f = (1/2π)·√(g/δ) ≈ 15.76/√(δ in mm) Hz (single-degree-of-freedom
 //! theory; reference-values.md §10, status R2/D).
 
+// The propagated functions index the input vector built beside them, of a
+// length fixed in the same call.
+#![allow(clippy::indexing_slicing)]
+
 use super::{propagate, Estimate, In, Method, RateEstimate};
 use crate::error::{check, InputError};
 use crate::G_N;

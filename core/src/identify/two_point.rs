@@ -15,6 +15,10 @@
 //! uncertainty u_z) shifts both force readings alike, so it cancels in the
 //! rate but not in L_z, F₀ or a preload. First-order propagation (GUM 5.1.2).
 
+// The propagated functions index the input vector built beside them, of a
+// length fixed in the same call.
+#![allow(clippy::indexing_slicing)]
+
 use super::{propagate, Estimate, In, Method, RateEstimate};
 use crate::error::{check, InputError};
 use serde::{Deserialize, Serialize};

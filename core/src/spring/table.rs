@@ -19,6 +19,11 @@
 //! overlap of both curves when an unloading curve is given), so travel
 //! outside the measurement is refused, not guessed.
 
+// The interpolant indexes its own knot arrays: every curve is validated to
+// hold at least two strictly ordered rows before an interpolant is built,
+// and every index is a loop counter or `locate`'s clamped 0..n−1.
+#![allow(clippy::indexing_slicing)]
+
 use super::{Axis, ForceLaw, Spring, Travel};
 use crate::error::{check, InputError};
 use crate::figure::SourceStatus;

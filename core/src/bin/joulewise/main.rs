@@ -10,6 +10,9 @@
 //! ```
 //! Exit codes: 0 every check passes; 1 some check fails (or cannot be made);
 //! 2 bad input (the message on stderr names the file, line or field).
+#![forbid(unsafe_code)]
+// No index or slice that could panic on a file's content (as in the library).
+#![cfg_attr(not(test), deny(clippy::indexing_slicing, clippy::string_slice))]
 
 mod register;
 
@@ -272,7 +275,8 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
         "machine {} · {} · assessor {} · {} · rev {}",
         id.machine_tag, id.location, id.assessor, id.date, id.revision
     )?;
-    writeln!(out, "{} · scenario {}", r.program, &r.scenario_hash[..16])?;
+    let short = r.scenario_hash.get(..16).unwrap_or(&r.scenario_hash);
+    writeln!(out, "{} · scenario {}", r.program, short)?;
     writeln!(
         out,
         "\nVerdict: {} ({} within, {} exceeding, {} not checkable)",

@@ -198,7 +198,8 @@ pub fn demo_register(rows: u64, seed: u64, out: &mut dyn Write) -> Result<()> {
                 cells.insert("inertia_shape", "plate".into());
                 cells.insert("size", format!("{:.0} mm", uniform(300.0, 900.0)));
                 cells.insert("hinge_tilt", "0 deg".into());
-                cells.insert("hazard_radius", cells["size"].clone());
+                let size = cells.get("size").cloned().unwrap_or_default();
+                cells.insert("hazard_radius", size);
                 cells.insert("travel", format!("{:.0} deg", uniform(60.0, 100.0)));
                 cells.insert("spring", "torsion".into());
                 cells.insert("spring_rate", format!("{:.2} N·m/rad", uniform(0.5, 4.0)));
