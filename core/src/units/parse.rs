@@ -271,6 +271,13 @@ fn resolve_unit(unit_text: &str, dim: Dim, default_unit: &str) -> Result<&'stati
             }),
         };
     }
+    // Separators alone (`5 .`, `5 -`, `5 ·`) normalise to no unit at all;
+    // they are a slip or a cut-off text, never the plain number.
+    if table::Normalized::new(unit_text).next().is_none() {
+        return Err(UnitError::UnknownUnit {
+            unit: unit_text.to_string(),
+        });
+    }
     if let Some(u) = find_in(dim, unit_text) {
         return Ok(u);
     }
@@ -1090,6 +1097,21 @@ mod tests {
         }
         assert_eq!(p("0e-400 mm", Dim::Length, "mm"), 0.0);
         assert_eq!(p("0.000", Dim::Ratio, ""), 0.0);
+    }
+
+    /// Found by the `units_parse` fuzz target: a unit made only of
+    /// separators normalised to the empty spelling of a plain number, so
+    /// `5 .`, `5 -` and `5 *` read as 5 where a ratio was expected.
+    #[test]
+    fn separators_alone_are_not_a_unit() {
+        for text in ["5 .", "5 -", "5 *", "5 ·", "0 .", "5 . ·"] {
+            assert!(
+                matches!(err(text, Dim::Ratio, ""), UnitError::UnknownUnit { .. }),
+                "{text}"
+            );
+        }
+        assert_eq!(p("5.", Dim::Ratio, ""), 5.0);
+        assert_eq!(p(" 5 ", Dim::Ratio, ""), 5.0);
     }
 
     #[test]
