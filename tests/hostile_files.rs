@@ -103,3 +103,46 @@ fn the_manifest_lists_every_file_once() {
         .iter()
         .any(|f| f.bytes.len() >= hostile::HUGE_FILE_BYTES));
 }
+
+/// Spring combinations nested as deep as the JSON parser allows (60 levels
+/// of `members` lists: 125 brackets deep with the scenario around them, the
+/// parser's limit being 128) inside an otherwise valid scenario:
+/// read without overflowing a test thread's 2 MiB stack (serde buffers
+/// each tagged level), then assessed: same-kind nesting flattens, and
+/// alternating series and parallel is refused as an input error.
+#[test]
+fn spring_combinations_nested_to_the_parser_limit() {
+    let leaf =
+        r#"{"model": "linear", "rate": {"text": "8 N/mm"}, "max_deflection": {"text": "45 mm"}}"#;
+    for alternate in [false, true] {
+        let mut model = leaf.to_string();
+        for level in 0..60 {
+            let kind = if alternate && level % 2 == 1 {
+                "parallel"
+            } else {
+                "series"
+            };
+            model = format!(r#"{{"model": "{kind}", "members": [{model}]}}"#);
+        }
+        let mut v: serde_json::Value =
+            serde_json::from_str(&joulewise_core::scenario::demos::ejector().to_json()).unwrap();
+        v["spring"]["model"] = serde_json::from_str(&model).unwrap();
+        let text = serde_json::to_string(&v).unwrap();
+        let t0 = Instant::now();
+        match Scenario::from_json(&text) {
+            Err(e) => panic!("alternate {alternate}: {e}"),
+            Ok(s) => {
+                let r = joulewise_core::assess::assess(&s).unwrap();
+                joulewise_tests::robust::check_report(&r).unwrap();
+                if alternate {
+                    assert!(
+                        r.errors.iter().any(|e| e.field.starts_with("spring.model")),
+                        "{:?}",
+                        r.errors
+                    );
+                }
+            }
+        }
+        assert!(t0.elapsed() < MAX_PER_FILE, "took {:?}", t0.elapsed());
+    }
+}
