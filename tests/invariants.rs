@@ -3,6 +3,7 @@
 //! **joulewise-core knows nothing of the DOM, Leptos, clocks, entropy or
 //! I/O**: its dependency graph (without the `cli` feature) must not contain a
 //! web, browser-glue or OS-entropy crate. The check reads `cargo metadata`.
+#![forbid(unsafe_code)]
 
 use std::process::Command;
 
@@ -163,5 +164,71 @@ fn trunk_pins_the_wasm_bindgen_version_of_cargo_lock() {
     assert!(
         trunk.contains("wasm_opt = \"version_132\""),
         "wasm-opt must be pinned"
+    );
+}
+
+/// **`unsafe` is forbidden in every crate of ours.** Two layers: the
+/// workspace lint `unsafe_code = "forbid"` that every member inherits
+/// (`[lints] workspace = true`), which the compiler enforces on every
+/// target; and `#![forbid(unsafe_code)]` at the root of every target of the
+/// core, xtask and tests packages and of the fuzz targets, so the rule is
+/// visible where code starts and holds if a manifest drops the lint table.
+/// (The web package's roots are covered by the workspace lint; its sheet
+/// is maintained separately.)
+#[test]
+fn unsafe_code_is_forbidden_in_every_crate() {
+    let root = joulewise_tests::workspace_root();
+    let manifest = std::fs::read_to_string(root.join("Cargo.toml")).unwrap();
+    assert!(
+        manifest.contains("[workspace.lints.rust]\nunsafe_code = \"forbid\""),
+        "the workspace must forbid unsafe code"
+    );
+    let out = Command::new(env!("CARGO"))
+        .args([
+            "metadata",
+            "--format-version",
+            "1",
+            "--no-deps",
+            "--offline",
+            "--manifest-path",
+        ])
+        .arg(root.join("Cargo.toml"))
+        .output()
+        .expect("cargo metadata runs");
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let meta: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let mut missing = Vec::new();
+    for pkg in meta["packages"].as_array().unwrap() {
+        let name = pkg["name"].as_str().unwrap_or("");
+        let manifest = std::fs::read_to_string(pkg["manifest_path"].as_str().unwrap()).unwrap();
+        if !manifest.contains("[lints]\nworkspace = true") {
+            missing.push(format!(
+                "{name}: Cargo.toml does not inherit the workspace lints"
+            ));
+        }
+        if name == "joulewise-web" {
+            continue;
+        }
+        for target in pkg["targets"].as_array().unwrap() {
+            let path = target["src_path"].as_str().unwrap();
+            let text = std::fs::read_to_string(path).unwrap();
+            if !text.contains("#![forbid(unsafe_code)]") {
+                missing.push(format!("{name}: {path}"));
+            }
+        }
+    }
+    for path in rust_files(&root.join("fuzz/fuzz_targets")) {
+        let text = std::fs::read_to_string(&path).unwrap();
+        if !text.contains("#![forbid(unsafe_code)]") {
+            missing.push(path.display().to_string());
+        }
+    }
+    assert!(
+        missing.is_empty(),
+        "without #![forbid(unsafe_code)]: {missing:#?}"
     );
 }

@@ -1,6 +1,10 @@
-//! Shared helpers for the cross-crate test suites (tolerances, paths).
+//! Shared helpers for the cross-crate test suites (tolerances, paths) and
+//! the robustness checks shared with the fuzz targets ([`robust`]).
+#![forbid(unsafe_code)]
 
 use std::path::PathBuf;
+
+pub mod robust;
 
 /// The workspace root (parent of this crate's folder).
 pub fn workspace_root() -> PathBuf {

@@ -2,6 +2,7 @@
 //! cover, each compared with the value printed in the book, within the
 //! tolerance the verification catalogue states for it
 //! (`joulewise_core::verification`). Source and status beside each check.
+#![forbid(unsafe_code)]
 
 use joulewise_core::spring::helical::{CoilDiameter, EndType, Seating};
 use joulewise_core::spring::{HelicalSpec, HelicalSpring, Material};

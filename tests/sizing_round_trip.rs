@@ -27,6 +27,7 @@
 //! The drive and gravity components act as one constant push
 //! (`drive_force` = drive + gravity, incline 0), friction as the impact
 //! model's Coulomb friction.
+#![forbid(unsafe_code)]
 
 use joulewise_core::contact::buffer::{
     impact, Buffer, BufferConfig, BufferLaw, ImpactConfig, ImpactInput, ImpactOutcome, Rebound,

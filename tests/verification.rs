@@ -11,6 +11,7 @@
 //!   subject, and a limit set's status is its weakest entry's;
 //! - the section "How the figures are checked" at the end of DEVELOPERS.md
 //!   is exactly `verification::markdown()`.
+#![forbid(unsafe_code)]
 
 use joulewise_core::figure::SourceStatus;
 use joulewise_core::limits::{self, LimitSetId};

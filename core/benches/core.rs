@@ -8,7 +8,7 @@
 //! (right-hand-side evaluations, steps) and, for the power-law case, the
 //! error against the closed form (work–energy theorem: ½·m·v² = ½·k·s₀² at
 //! contact, ½·m·v² = a·x^(n+1)/(n+1) at the largest compression).
-
+#![forbid(unsafe_code)]
 // A benchmark whose fixture cannot be built must stop loudly: `expect` is
 // the clearest way to say which fixture.
 #![allow(clippy::expect_used)]

@@ -1,5 +1,6 @@
 //! Rough timing of `assess` per demo (development aid; the benchmarks with
 //! budgets live in `cargo xtask bench`).
+#![forbid(unsafe_code)]
 use joulewise_core::scenario::demos;
 use std::time::Instant;
 

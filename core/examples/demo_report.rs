@@ -1,5 +1,6 @@
 //! Prints the key figures and checks of every demo scenario (a quick look
 //! while developing: `cargo run -p joulewise-core --example demo_report`).
+#![forbid(unsafe_code)]
 use joulewise_core::scenario::demos;
 use joulewise_core::units::{format_quantity, UnitSystem};
 

@@ -8,6 +8,8 @@
 //! Workloads: `study N` (the carriage demo's tolerance study with N Monte
 //! Carlo samples), `assess N` and `summary N` (N runs of `assess` /
 //! `assess_summary` on every demo).
+
+#![forbid(unsafe_code)]
 use joulewise_core::assess::{assess, assess_summary, Study};
 use joulewise_core::scenario::demos;
 

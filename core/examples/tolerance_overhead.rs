@@ -7,6 +7,7 @@
 //!
 //! Run: `cargo run -p joulewise-core --profile fast --example tolerance_overhead`.
 //! Criterion benches with the real integrator come later (issue 10).
+#![forbid(unsafe_code)]
 
 use joulewise_core::tolerance::*;
 use joulewise_core::InputError;

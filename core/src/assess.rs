@@ -123,6 +123,9 @@ struct Outcome {
     clamping: Option<Result<ClampingOutcome, InputError>>,
     gap: Option<Result<ClosingGap, InputError>>,
     sizing: Vec<SizingOutcome>,
+    /// The buffer's inputs, each valid, do not make a buffer together (a
+    /// preload outside a measured table): an input error for the report.
+    buffer_error: Option<InputError>,
     /// Forces at the contact point (hazard point, N): spring, gravity,
     /// drive, friction.
     contact_forces: Option<[f64; 4]>,
@@ -158,7 +161,11 @@ fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
     let mut r = Reader::record();
     let model = resolve(s, &mut r);
     let out = evaluate(&model, detail);
-    let mut figures = figures(&model, &out, &r.errors);
+    // A buffer whose inputs do not fit together is an input error like any
+    // other: beside its field, and the reason its figures are missing.
+    let mut errors = r.errors;
+    errors.extend(out.buffer_error.clone());
+    let mut figures = figures(&model, &out, &errors);
     let checks = checks(&model, &out, &figures);
     add_check_figures(&mut figures, &checks);
     let cautions = cautions_for(&figures, &checks);
@@ -176,7 +183,7 @@ fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
         identity: s.identity.clone(),
         display_units: s.display_units,
         inputs: r.records.iter().map(input_line).collect(),
-        errors: r.errors,
+        errors,
         figures,
         checks,
         cautions,
@@ -413,7 +420,17 @@ fn buffer_of(b: &BufferModel) -> Result<Buffer<'_>, InputError> {
             None => Rebound::Elastic,
         },
     })
-    .map_err(|e| e.within("contact.law"))
+    // The buffer names its fields `law.…`, `count` and `rebound`; the
+    // scenario calls them `contact.law.…`, `contact.count` and
+    // `contact.restitution`, and a buffer's spring `contact.law.model`.
+    .map_err(|mut e| {
+        e.field = match e.field.as_str() {
+            "rebound" => "restitution".into(),
+            "law.spring" => "law.model".into(),
+            _ => e.field,
+        };
+        e.within("contact")
+    })
 }
 
 /// Spring deflection (m or rad) of a mount at part position `q`, kept in the
@@ -538,8 +555,7 @@ fn evaluate(model: &Model, detail: Detail) -> Outcome {
         }
         Some(Err(e)) => {
             out.release = Some(release(&mech, &rcfg).map_err(|e| e.to_string()));
-            out.notes
-                .push(format!("The buffer cannot be modelled: {e}"));
+            out.buffer_error = Some(e);
         }
         None => out.release = Some(release(&mech, &rcfg).map_err(|e| e.to_string())),
     }
@@ -1229,7 +1245,7 @@ fn time_force_above(imp: &ImpactOutcome, threshold: f64) -> f64 {
     let h = &imp.history;
     let mut total = 0.0;
     for w in h.windows(2) {
-        let (a, b) = (&w[0], &w[1]);
+        let [a, b] = w else { continue };
         let (fa, fb) = (a.buffer_force - threshold, b.buffer_force - threshold);
         let dt = b.time - a.time;
         if dt.is_nan() || dt <= 0.0 {
@@ -1422,6 +1438,13 @@ const STUDY_FIGURES: &[&str] = &[
     ids::BODY_CLAMPING_PRESSURE,
     ids::GAP_CLOSING_GAP,
 ];
+
+// The largest study a scenario may ask for fits the Monte Carlo memory
+// bound, so a valid request is never dropped.
+const _: () = assert!(
+    crate::scenario::MAX_STUDY_SAMPLES as usize * STUDY_FIGURES.len()
+        <= crate::tolerance::monte_carlo::MAX_STORED_VALUES
+);
 
 /// A tolerance study in progress: worst-case corners first, then the Monte
 /// Carlo samples, advanced in slices so a browser can show progress.

@@ -154,6 +154,24 @@ pub mod check {
         }
     }
 
+    /// A value derived from several inputs (a rate from a geometry, an area
+    /// from dimensions) that must be finite and strictly positive: inputs of
+    /// extreme size can overflow or underflow it even when each one passed
+    /// its own check. The error names `field`, the input most likely at
+    /// fault, and says what the product was.
+    pub fn derived(field: &str, v: f64, what: &str) -> Result<f64, InputError> {
+        if v.is_finite() && v > 0.0 {
+            Ok(v)
+        } else {
+            Err(InputError::invalid(
+                field,
+                format!(
+                    "gives {what} of {v}, not a finite positive number: check the size and unit of this and the related inputs"
+                ),
+            ))
+        }
+    }
+
     /// Finite and within `[min, max]` inclusive.
     pub fn in_range(field: &str, v: f64, min: f64, max: f64) -> Result<f64, InputError> {
         finite(field, v)?;

@@ -24,6 +24,10 @@
 //!   the "how these figures were checked" page).
 #![forbid(unsafe_code)]
 #![warn(missing_docs)]
+// No index or slice that could panic on user input: indexing is denied in
+// the library (tests may index), and the few modules that index their own
+// fixed-size or validated arrays allow it with the reason beside it.
+#![cfg_attr(not(test), deny(clippy::indexing_slicing, clippy::string_slice))]
 
 pub mod assess;
 pub mod cautions;

@@ -1,7 +1,7 @@
 //! The command-line front end, run as a user runs it: every subcommand, the
 //! three exit codes, file errors that name the file, line or field, the
 //! schema against the demos and against broken files, and a batch register.
-
+#![forbid(unsafe_code)]
 // Test helpers may panic: a panic here is a failed test, not a user-facing crash.
 #![allow(clippy::unwrap_used, clippy::expect_used)]
 

@@ -16,6 +16,7 @@
 //! `refharness markdown` (argument instead of standard input) prints the
 //! "How the figures are checked" section generated from
 //! `joulewise_core::verification`, for DEVELOPERS.md.
+#![forbid(unsafe_code)]
 
 use joulewise_core::contact::body::{self, Clamping, TransientContact};
 use joulewise_core::contact::buffer::{

@@ -11,6 +11,7 @@
 //!
 //! Only the package registries are used (crates.io, npm, Debian); no tool is
 //! ever downloaded from anywhere else.
+#![forbid(unsafe_code)]
 
 mod bench;
 mod dist;

@@ -148,6 +148,38 @@ fn reference_command() -> Command {
     }
 }
 
+/// Write the hostile import corpus (`joulewise-tests`'s `hostile-corpus`
+/// bin: 290-odd broken scenario files and `manifest.json`, one of them
+/// 50 MB, so generated rather than committed) into `target/hostile-corpus`
+/// for the end-to-end import test, which finds it through
+/// `HOSTILE_CORPUS_DIR`. `None` (with the reason printed) when it cannot be
+/// written.
+fn hostile_corpus() -> Option<std::path::PathBuf> {
+    let target = std::env::var_os("CARGO_TARGET_DIR")
+        .map(std::path::PathBuf::from)
+        .unwrap_or_else(|| workspace_root().join("target"));
+    let dir = target.join("hostile-corpus");
+    let made = run(Command::new("cargo")
+        .args([
+            "run",
+            "-q",
+            "-p",
+            "joulewise-tests",
+            "--bin",
+            "hostile-corpus",
+            "--",
+        ])
+        .arg(&dir)
+        .current_dir(workspace_root()));
+    match made {
+        Ok(()) => Some(dir),
+        Err(e) => {
+            eprintln!("xtask: the hostile import corpus could not be written: {e}");
+            None
+        }
+    }
+}
+
 /// `cargo xtask test`.
 pub fn test_cmd(args: &[String]) -> Result<(), String> {
     let list = |flag: &str| -> Vec<String> {
@@ -287,16 +319,19 @@ pub fn test_cmd(args: &[String]) -> Result<(), String> {
     }
     if wanted("e2e") {
         let t0 = Instant::now();
+        let hostile = hostile_corpus();
         let (p, f) = match Server::start(&root.join("dist"), 0, "/") {
             Ok(server) => {
                 let base = format!("http://127.0.0.1:{}/", server.port);
-                let (ok, out) = run_streaming(
-                    Command::new("node")
-                        .arg("tests/e2e/run.mjs")
-                        .current_dir(&root)
-                        .env("BASE_URL", &base)
-                        .env("DIST_DIR", root.join("dist")),
-                );
+                let mut node = Command::new("node");
+                node.arg("tests/e2e/run.mjs")
+                    .current_dir(&root)
+                    .env("BASE_URL", &base)
+                    .env("DIST_DIR", root.join("dist"));
+                if let Some(dir) = &hostile {
+                    node.env("HOSTILE_CORPUS_DIR", dir);
+                }
+                let (ok, out) = run_streaming(&mut node);
                 let (p, f) = count_tests(&out);
                 if !ok && f == 0 {
                     (p, 1)

@@ -128,12 +128,19 @@ impl ContactArea {
     /// A dimension not finite and positive, named by its field.
     pub fn area(&self) -> Result<f64, InputError> {
         match *self {
+            // Dimensions of extreme size can overflow or underflow the
+            // product even when each is positive: the area must be usable.
             ContactArea::Edge { length, width } => {
-                Ok(check::positive("length", length)? * check::positive("width", width)?)
+                let a = check::positive("length", length)? * check::positive("width", width)?;
+                check::derived("width", a, "a contact area length × width")
             }
             ContactArea::Circle { diameter } => {
                 let d = check::positive("diameter", diameter)?;
-                Ok(std::f64::consts::PI * d * d / 4.0)
+                check::derived(
+                    "diameter",
+                    std::f64::consts::PI * d * d / 4.0,
+                    "a contact area π·d²/4",
+                )
             }
             ContactArea::Given { area } => check::positive("area", area),
         }
@@ -198,7 +205,9 @@ impl SeriesSpring {
     /// `k_eff = 1/(1/k_body + 1/k_pad)` (springs in series).
     fn effective(&self) -> f64 {
         match self.pad {
-            Some(kp) => self.body * kp / (self.body + kp),
+            // 1/(1/k_b + 1/k_p): the same value as k_b·k_p/(k_b + k_p)
+            // without ∞/∞ for stiffnesses of extreme size.
+            Some(kp) => 1.0 / (1.0 / self.body + 1.0 / kp),
             None => self.body,
         }
     }
@@ -208,7 +217,7 @@ impl SeriesSpring {
         let ke = self.effective();
         match self.pad_flat_force {
             Some(fb) if f > fb => fb * fb / (2.0 * ke) + (f * f - fb * fb) / (2.0 * self.body),
-            _ => f * f / (2.0 * ke),
+            _ => 0.5 * f * (f / ke),
         }
     }
 
@@ -219,7 +228,9 @@ impl SeriesSpring {
             Some(fb) if e > fb * fb / (2.0 * ke) => {
                 (fb * fb + self.body * (2.0 * e - fb * fb / ke)).sqrt()
             }
-            _ => (2.0 * ke * e).sqrt(),
+            // √(2·e)·√k rather than √(2·k·e): no ∞·0 for a stiffness of
+            // extreme size meeting an energy that underflowed.
+            _ => (2.0 * e).sqrt() * ke.sqrt(),
         }
     }
 
@@ -418,12 +429,16 @@ pub fn transient_contact(input: &TransientContact) -> Result<TransientOutcome, I
 
     let m_h = input.region.mass;
     let k_body = input.region.stiffness;
-    // μ = m_H·m_R/(m_H + m_R), written to avoid 1/m overflow for tiny masses.
-    let mu = m_h * m_r / (m_h + m_r);
+    // μ = m_H·m_R/(m_H + m_R), written as small/(1 + small/large): no 1/m
+    // overflow for tiny masses and no ∞/∞ for masses of extreme size.
+    let (small, large) = if m_h < m_r { (m_h, m_r) } else { (m_r, m_h) };
+    let mu = small / (1.0 + small / large);
     let spring = SeriesSpring::new(k_body, input.padding.as_ref());
     let contact_energy = 0.5 * mu * v * v;
     let peak_force = spring.force_at_energy(contact_energy);
-    let transfer_energy = peak_force * peak_force / (2.0 * k_body);
+    // F²/(2k) written as ½·F·(F/k): the same value, without F² and 2k
+    // both overflowing to ∞ (∞/∞ = NaN) for a region of extreme stiffness.
+    let transfer_energy = 0.5 * peak_force * (peak_force / k_body);
 
     let permissible_speed = match &input.limits {
         None => PermissibleSpeed::NoLimitGiven,
@@ -472,7 +487,7 @@ pub fn transient_contact(input: &TransientContact) -> Result<TransientOutcome, I
         reduced_mass: mu,
         effective_stiffness: spring.effective(),
         peak_force,
-        unpadded_peak_force: v * (mu * k_body).sqrt(),
+        unpadded_peak_force: SeriesSpring::new(k_body, None).force_at_energy(contact_energy),
         contact_energy,
         transfer_energy,
         pad_energy: (contact_energy - transfer_energy).max(0.0),
@@ -1251,6 +1266,60 @@ mod tests {
             at.relative_speed = o.permissible_speed.speed().unwrap();
             let back = transient_contact(&at).unwrap();
             prop_assert!((back.peak_force - fmax).abs() <= fmax * REL_INVERSE);
+        }
+    }
+}
+
+/// Inputs each valid but of extreme size (found by the property tests in
+/// `tests/properties.rs`).
+#[cfg(test)]
+mod extreme_inputs {
+    use super::*;
+
+    fn contact(m_h: f64, k: f64, v: f64, area: ContactArea) -> TransientContact {
+        TransientContact {
+            part_mass: 1.0,
+            relative_speed: v,
+            region: BodyRegion {
+                label: "test".into(),
+                mass: m_h,
+                stiffness: k,
+            },
+            contact_area: area,
+            padding: None,
+            limits: None,
+        }
+    }
+
+    const EDGE: ContactArea = ContactArea::Edge {
+        length: 0.1,
+        width: 0.1,
+    };
+
+    /// A circle of 2.2e-308 m gave an area of 0 and a pressure 0/0 = NaN;
+    /// a region of stiffness 1.8e308 N/m gave F²/(2k) = ∞/∞; a region of
+    /// mass 1.8e308 kg hit at 0 m/s gave ½·∞·0. The area must be a finite
+    /// positive number, and the reduced mass, peak force and energy are
+    /// written so that extreme sizes cannot make NaN.
+    #[test]
+    fn no_nan_for_extreme_areas_stiffnesses_and_masses() {
+        let tiny = ContactArea::Circle { diameter: 2.2e-308 };
+        let e = transient_contact(&contact(1.0, 1e3, 1e-3, tiny)).unwrap_err();
+        assert_eq!(e.field, "contact_area.diameter", "{e}");
+        for (m_h, k, v) in [
+            (5e-324, f64::MAX, 1.0),
+            (1.0, f64::MAX, 1.0),
+            (f64::MAX, 1e3, 0.0),
+        ] {
+            let o = transient_contact(&contact(m_h, k, v, EDGE)).unwrap();
+            for x in [
+                o.peak_force,
+                o.transfer_energy,
+                o.contact_energy,
+                o.pressure,
+            ] {
+                assert!(!x.is_nan(), "m_H {m_h}, k {k}, v {v}: {o:?}");
+            }
         }
     }
 }

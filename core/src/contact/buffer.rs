@@ -1062,6 +1062,52 @@ fn stroke<C: Carrier>(
     cycles_per_hour: f64,
     cfg: &ImpactConfig,
 ) -> Result<ImpactOutcome, ReleaseError> {
+    let o = stroke_unchecked(carrier, buffer, v0, cycles_per_hour, cfg)?;
+    // Inputs each valid but of extreme size (a friction force of 1e308 N
+    // against a large buffer count) can overflow the integration; such an
+    // outcome is refused, never handed on with NaN in it.
+    let numbers = [
+        o.mass,
+        o.contact_speed,
+        o.stroke_used,
+        o.stroke_available,
+        o.peak_force,
+        o.peak_deceleration,
+        o.compression_time,
+        o.energy_per_cycle,
+        o.cycles_per_hour,
+        o.residual_speed(),
+        o.heat_load(),
+    ];
+    let history = o.history.iter().flat_map(|h| {
+        [
+            h.time,
+            h.position,
+            h.speed,
+            h.hazard_speed,
+            h.spring_force,
+            h.buffer_force,
+            h.kinetic_energy,
+        ]
+    });
+    if numbers.into_iter().chain(history).all(f64::is_finite) {
+        Ok(o)
+    } else {
+        Err(ReleaseError::Input(InputError::invalid(
+            "buffer",
+            "the stroke gives no finite figures for inputs of this size: check the sizes and \
+             units of the mass, speed, forces and buffer",
+        )))
+    }
+}
+
+fn stroke_unchecked<C: Carrier>(
+    carrier: &C,
+    buffer: &Buffer<'_>,
+    v0: f64,
+    cycles_per_hour: f64,
+    cfg: &ImpactConfig,
+) -> Result<ImpactOutcome, ReleaseError> {
     let mass = carrier.mass();
     let count = f64::from(buffer.cfg.count);
     let s = buffer.stroke;

@@ -17,6 +17,10 @@
 //! Light damping lengthens the period by a negligible amount (second order
 //! in the damping ratio).
 
+// The propagated functions index the input vector built beside them, of a
+// length fixed in the same call.
+#![allow(clippy::indexing_slicing)]
+
 use super::{propagate, Estimate, In, Method, RateEstimate};
 use crate::error::{check, InputError};
 use serde::{Deserialize, Serialize};
@@ -128,7 +132,7 @@ pub fn dynamic_rate(input: &DynamicInput) -> Result<RateEstimate, InputError> {
                 basis: "as entered".into(),
             },
         ],
-    );
+    )?;
     let mut notes = Vec::new();
     if input.spring_mass.is_none() {
         notes.push(
@@ -161,7 +165,7 @@ pub fn dynamic_rate(input: &DynamicInput) -> Result<RateEstimate, InputError> {
 pub fn oscillation_frequency(input: &DynamicInput) -> Result<Estimate, InputError> {
     let c = checked(input)?;
     let n = c.n;
-    Ok(propagate(
+    propagate(
         |x| n / x[0],
         &[In {
             name: "time",
@@ -169,7 +173,7 @@ pub fn oscillation_frequency(input: &DynamicInput) -> Result<Estimate, InputErro
             u: c.ut,
             basis: c.timing_basis,
         }],
-    ))
+    )
 }
 
 #[cfg(test)]

@@ -28,6 +28,7 @@ pub use dynamic::{dynamic_rate, DynamicInput};
 pub use static_sag::{frequency_from_sag, static_rate, StaticInput};
 pub use two_point::{two_point, GaugedSpring, TwoPointInput, TwoPointResult};
 
+use crate::error::InputError;
 use crate::figure::Figure;
 use crate::units::Dim;
 use serde::{Deserialize, Serialize};
@@ -124,7 +125,45 @@ pub(crate) struct In<'a> {
 /// First-order (GUM 5.1.2) propagation through `f` with independent inputs;
 /// sensitivities by central differences (step 10⁻⁶ of the input's scale,
 /// 10⁻⁹ absolute for an input that is zero with zero uncertainty).
-pub(crate) fn propagate(f: impl Fn(&[f64]) -> f64, inputs: &[In<'_>]) -> Estimate {
+///
+/// # Errors
+/// Readings of extreme size for which the value, a sensitivity or the
+/// combined uncertainty is not a finite number: the error names the input
+/// whose contribution failed (its name with `_` for spaces), or the first
+/// input when the value itself failed.
+pub(crate) fn propagate(
+    f: impl Fn(&[f64]) -> f64,
+    inputs: &[In<'_>],
+) -> Result<Estimate, InputError> {
+    let e = propagate_unchecked(f, inputs);
+    let field = |name: &str| name.replace(' ', "_");
+    let first = inputs.first().map_or("value", |i| i.name);
+    if !e.value.is_finite() {
+        return Err(InputError::invalid(
+            field(first),
+            "these readings give no finite value: check their sizes and units",
+        ));
+    }
+    if let Some(bad) = e
+        .inputs
+        .iter()
+        .find(|i| !i.sensitivity.is_finite() || !i.contribution.is_finite())
+    {
+        return Err(InputError::invalid(
+            field(&bad.name),
+            "this reading is of a size for which the uncertainty cannot be computed: check its size and unit",
+        ));
+    }
+    if !e.standard_uncertainty.is_finite() {
+        return Err(InputError::invalid(
+            field(first),
+            "these readings give no finite uncertainty: check their sizes and units",
+        ));
+    }
+    Ok(e)
+}
+
+fn propagate_unchecked(f: impl Fn(&[f64]) -> f64, inputs: &[In<'_>]) -> Estimate {
     let x: Vec<f64> = inputs.iter().map(|i| i.value).collect();
     let value = f(&x);
     let mut budget = Vec::with_capacity(inputs.len());
@@ -227,6 +266,23 @@ mod tests {
     /// rounding ~1e-16/1e-6 = 1e-10.
     pub(crate) const REL_SENSITIVITY: f64 = 1e-8;
 
+    /// Found by the property tests: a mass of 1.8e308 kg made the rate
+    /// infinite and its uncertainty budget NaN; a reading of such a size
+    /// is now refused naming it.
+    #[test]
+    fn readings_that_overflow_are_refused_naming_the_input() {
+        let e = static_rate(&StaticInput {
+            mass: f64::MAX,
+            mass_uncertainty: 1.0,
+            sag: 0.1,
+            sag_tolerance: 1e-3,
+            gravity: None,
+            gravity_uncertainty: None,
+        })
+        .unwrap_err();
+        assert_eq!(e.field, "mass", "{e}");
+    }
+
     #[test]
     fn propagation_of_a_quotient_adds_relative_variances() {
         // f = a/b: (u_f/f)² = (u_a/a)² + (u_b/b)² (GUM 5.1.6 for products of powers).
@@ -246,7 +302,8 @@ mod tests {
                     basis: String::new(),
                 },
             ],
-        );
+        )
+        .unwrap();
         assert!((e.value - 2.5).abs() < REL_EXACT);
         let rel = (0.03f64.powi(2) + 0.04f64.powi(2)).sqrt();
         assert!((e.relative() / rel - 1.0).abs() < REL_SENSITIVITY);

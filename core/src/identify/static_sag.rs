@@ -14,6 +14,10 @@
 //! f = (1/2π)·√(g/δ) ≈ 15.76/√(δ in mm) Hz (single-degree-of-freedom
 //! theory; reference-values.md §10, status R2/D).
 
+// The propagated functions index the input vector built beside them, of a
+// length fixed in the same call.
+#![allow(clippy::indexing_slicing)]
+
 use super::{propagate, Estimate, In, Method, RateEstimate};
 use crate::error::{check, InputError};
 use crate::G_N;
@@ -95,7 +99,7 @@ pub fn static_rate(input: &StaticInput) -> Result<RateEstimate, InputError> {
                 basis: format!("rectangular ±{a:.3e} m: u = a/√3 (GUM 4.3.7)"),
             },
         ],
-    );
+    )?;
     let mut notes = vec![
         "assumes a linear spring over the sag and no friction in guides (friction stops the mass short of its true sag, so the rate comes out high)".into(),
     ];
@@ -128,7 +132,7 @@ pub fn frequency_from_sag(
     let d = check::positive("sag", sag)?;
     let a = check::non_negative("sag_tolerance", sag_tolerance)?;
     let (g, ug, gbasis) = gravity(local_gravity, None)?;
-    Ok(propagate(
+    propagate(
         |x| (x[0] / x[1]).sqrt() / (2.0 * PI),
         &[
             In {
@@ -144,7 +148,7 @@ pub fn frequency_from_sag(
                 basis: format!("rectangular ±{a:.3e} m: u = a/√3 (GUM 4.3.7)"),
             },
         ],
-    ))
+    )
 }
 
 #[cfg(test)]

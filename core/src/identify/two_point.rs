@@ -15,6 +15,10 @@
 //! uncertainty u_z) shifts both force readings alike, so it cancels in the
 //! rate but not in L_z, F₀ or a preload. First-order propagation (GUM 5.1.2).
 
+// The propagated functions index the input vector built beside them, of a
+// length fixed in the same call.
+#![allow(clippy::indexing_slicing)]
+
 use super::{propagate, Estimate, In, Method, RateEstimate};
 use crate::error::{check, InputError};
 use serde::{Deserialize, Serialize};
@@ -156,21 +160,21 @@ pub fn two_point(input: &TwoPointInput) -> Result<TwoPointResult, InputError> {
         let s = (x[3] - x[1]) / (x[2] - x[0]);
         (x[1] - x[4]) + s * (l - x[0])
     };
-    let rate = propagate(|x| ((x[3] - x[1]) / (x[2] - x[0])).abs(), &inputs(None));
+    let rate = propagate(|x| ((x[3] - x[1]) / (x[2] - x[0])).abs(), &inputs(None))?;
     let zero_force_length = propagate(
         |x| {
             let s = (x[3] - x[1]) / (x[2] - x[0]);
             x[0] - (x[1] - x[4]) / s
         },
         &inputs(None),
-    );
+    )?;
     let force_at_length = match input.at_length {
         Some(l) => {
             let l = check::positive("at_length", l)?;
             Some(propagate(
                 |x| line(x, x[5]),
                 &inputs(Some(("length asked", l))),
-            ))
+            )?)
         }
         None => None,
     };
@@ -180,7 +184,7 @@ pub fn two_point(input: &TwoPointInput) -> Result<TwoPointResult, InputError> {
             Some(propagate(
                 |x| line(x, x[5]),
                 &inputs(Some(("closed length", l))),
-            ))
+            )?)
         }
         _ => None,
     };

@@ -603,7 +603,7 @@ pub fn us_checks(case: &UsBufferCase) -> Result<Vec<Check>, InputError> {
             let max_speed = if case.terminal_speed_limiter {
                 limiter_speed
             } else {
-                US_HOIST_SPRING_BANDS[US_HOIST_SPRING_BANDS.len() - 1].0
+                US_HOIST_SPRING_BANDS.last().map_or(0.0, |b| b.0)
             } * us_units::FOOT_PER_MINUTE;
             out.push(
                 Check::at_most(speed_subject("lift.us.hoist_spring_buffer_speed"), Some(v), max_speed, cal("§1604.14(a)(1), (b)(1)"))

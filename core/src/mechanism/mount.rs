@@ -242,7 +242,8 @@ impl<'a> SpringMount<'a> {
             Self::Direct(_) => 0,
             Self::Strut(s) => s.turning_points(q1.min(q2), q1.max(q2), &mut turns),
         };
-        let turns = &mut turns[..n];
+        // `turning_points` returns at most `turns.len()`.
+        let turns = turns.get_mut(..n).unwrap_or_default();
         if dir < 0.0 {
             turns.reverse();
         }
@@ -308,8 +309,11 @@ impl Strut<'_> {
                 break;
             }
             if th > lo {
-                out[n] = th;
-                n += 1;
+                // n ≤ j < out.len(): the slot exists.
+                if let Some(slot) = out.get_mut(n) {
+                    *slot = th;
+                    n += 1;
+                }
             }
         }
         n

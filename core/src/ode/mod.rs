@@ -32,6 +32,11 @@
 //! the step loop allocates nothing and is monomorphised for the model (no
 //! dynamic dispatch in the hot loop).
 
+// Indexing here is into fixed-size stage and state arrays (`[f64; N]`,
+// the tableau's seven stages) by loop counters bounded by those sizes;
+// no index comes from user input.
+#![allow(clippy::indexing_slicing)]
+
 mod root;
 mod tableau;
 

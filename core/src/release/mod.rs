@@ -577,6 +577,51 @@ pub(crate) fn reference_scales(mech: &Mechanism<'_>) -> (f64, f64) {
 /// [`ReleaseError::Input`] for unusable solver settings, and the bounded
 /// failures of the integrator ([`ReleaseError::Ode`]) or of the time limit.
 pub fn release(mech: &Mechanism<'_>, cfg: &ReleaseConfig) -> Result<ReleaseOutcome, ReleaseError> {
+    let o = release_unchecked(mech, cfg)?;
+    // Inputs each valid but of extreme size can overflow the integration;
+    // such an outcome is refused, never handed on with NaN in it.
+    let w = &o.work;
+    let numbers = [
+        o.time,
+        o.position,
+        o.speed_ode,
+        o.speed_energy_balance.unwrap_or(0.0),
+        o.left_spring_at.unwrap_or(0.0),
+        o.inertia,
+        o.hazard_mass,
+        o.closing_force_static,
+        w.spring,
+        w.gravity,
+        w.drive,
+        w.friction,
+        w.damping,
+    ];
+    let history = o.history.iter().flat_map(|h| {
+        [
+            h.time,
+            h.position,
+            h.speed,
+            h.hazard_speed,
+            h.spring_force,
+            h.buffer_force,
+            h.kinetic_energy,
+        ]
+    });
+    if numbers.into_iter().chain(history).all(f64::is_finite) {
+        Ok(o)
+    } else {
+        Err(ReleaseError::Input(InputError::invalid(
+            "mass",
+            "the release gives no finite figures for inputs of this size: check the sizes and \
+             units of the mass, spring, forces and travel",
+        )))
+    }
+}
+
+fn release_unchecked(
+    mech: &Mechanism<'_>,
+    cfg: &ReleaseConfig,
+) -> Result<ReleaseOutcome, ReleaseError> {
     let travel = mech.travel();
     let (v_ref, t_ref) = reference_scales(mech);
     let mut engaged = mech.engaged_at_latch();

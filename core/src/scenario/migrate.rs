@@ -47,7 +47,9 @@ pub fn to_current(value: Value) -> Result<Value, FileError> {
     let Some(version) = version else {
         return Err(FileError {
             path: "schema_version".into(),
-            message: format!("must be a whole number such as {SCHEMA_VERSION}"),
+            message: format!(
+                "must be a whole number such as {SCHEMA_VERSION} (no quotes, no sign, no decimal point)"
+            ),
         });
     };
     if version == 0 {

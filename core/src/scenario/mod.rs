@@ -834,6 +834,12 @@ fn extension_curve() -> ForceReference {
 fn default_seating() -> Seating {
     Seating::BothFixed
 }
+/// Most Monte Carlo samples a scenario may ask for: every sample of every
+/// figure the study follows is kept for exact percentiles, and 500 000 ×
+/// the followed figures stays within the study's memory bound (checked at
+/// compile time in `assess`). More samples would be silently skipped.
+pub const MAX_STUDY_SAMPLES: u32 = 500_000;
+
 fn default_samples() -> u32 {
     10_000
 }
@@ -861,21 +867,95 @@ impl std::fmt::Display for FileError {
     }
 }
 
+/// Largest scenario file read, in bytes (4 MiB). A scenario with every
+/// section filled and long measured tables is a few tens of kilobytes; a
+/// larger file is not a scenario (or carries a pasted document), and
+/// refusing it before parsing keeps an import quick on a tablet.
+pub const MAX_FILE_BYTES: usize = 4 * 1024 * 1024;
+
+fn file_error(message: impl Into<String>) -> FileError {
+    FileError {
+        path: String::new(),
+        message: message.into(),
+    }
+}
+
+fn too_large(len: usize) -> FileError {
+    // Sizes in MiB for people; the exact limit in the constant's doc.
+    let mib = |n: usize| n as f64 / (1024.0 * 1024.0);
+    file_error(format!(
+        "the file is {:.1} MB; a scenario file is at most {:.0} MB, so this is not a Joulewise scenario",
+        mib(len),
+        mib(MAX_FILE_BYTES)
+    ))
+}
+
 impl Scenario {
+    /// Read a scenario from the bytes of a file: checks the size, refuses
+    /// UTF-16 and UTF-32 text and bytes that are not UTF-8 (naming the
+    /// first bad byte and its line), skips a UTF-8 byte-order mark, then
+    /// reads the text with [`Scenario::from_json`].
+    ///
+    /// # Errors
+    /// An empty or oversized file, text in another encoding, and everything
+    /// [`Scenario::from_json`] refuses.
+    pub fn from_bytes(bytes: &[u8]) -> Result<Scenario, FileError> {
+        if bytes.len() > MAX_FILE_BYTES {
+            return Err(too_large(bytes.len()));
+        }
+        let bytes = bytes.strip_prefix(b"\xEF\xBB\xBF").unwrap_or(bytes);
+        if let Some(name) = utf16_or_32(bytes) {
+            return Err(file_error(format!(
+                "the file is {name} text; a scenario file is UTF-8: save it again as UTF-8"
+            )));
+        }
+        match std::str::from_utf8(bytes) {
+            Ok(text) => Self::from_json(text),
+            Err(e) => {
+                let at = e.valid_up_to();
+                let line = 1 + bytes
+                    .get(..at)
+                    .map_or(0, |b| b.iter().filter(|&&c| c == b'\n').count());
+                let byte = bytes.get(at).copied().unwrap_or(0);
+                Err(file_error(format!(
+                    "not UTF-8 text: byte 0x{byte:02X} at offset {at} (line {line}) cannot be read; \
+                     a scenario file is UTF-8 JSON (a file saved as Latin-1 or Windows-1252 must \
+                     be saved again as UTF-8, and a binary file is not a scenario)"
+                )))
+            }
+        }
+    }
+
     /// Read a scenario from JSON text, migrating an older format version.
     ///
     /// # Errors
-    /// Malformed JSON, a field of the wrong type or shape (named by its
-    /// path), an unknown or newer format version.
+    /// Empty or oversized text, malformed JSON (truncated files and nesting
+    /// deeper than the parser's limit of 128 levels are named as such), a
+    /// field of the wrong type or shape (named by its path), an unknown or
+    /// newer format version.
     pub fn from_json(text: &str) -> Result<Scenario, FileError> {
-        let value: serde_json::Value = serde_json::from_str(text).map_err(|e| FileError {
-            path: String::new(),
-            message: format!(
-                "not a readable scenario file (JSON error at line {}, column {}: {})",
+        if text.len() > MAX_FILE_BYTES {
+            return Err(too_large(text.len()));
+        }
+        let text = text.strip_prefix('\u{feff}').unwrap_or(text);
+        if text.trim().is_empty() {
+            return Err(file_error(
+                "the file is empty; a scenario file is a JSON object with a \"schema_version\" field",
+            ));
+        }
+        let value: serde_json::Value = serde_json::from_str(text).map_err(|e| {
+            let what = if e.is_eof() {
+                "the file ends before the JSON does (cut short?)".to_string()
+            } else if e.to_string().starts_with("recursion limit exceeded") {
+                "brackets nested deeper than any scenario (more than 128 levels)".to_string()
+            } else {
+                format!("JSON error: {e}")
+            };
+            file_error(format!(
+                "not a readable scenario file at line {}, column {}: {what}",
                 e.line(),
                 e.column(),
-                e
-            ),
+            ))
         })?;
         let value = migrate::to_current(value)?;
         Self::from_value(value)
@@ -885,23 +965,43 @@ impl Scenario {
     /// version (no migration).
     ///
     /// # Errors
-    /// A field of the wrong type or shape, named by its path.
+    /// A field of the wrong type or shape, named by its path; a format
+    /// version other than [`SCHEMA_VERSION`] (such a value must go through
+    /// [`Scenario::from_json`], which migrates older versions).
     pub fn from_value(value: serde_json::Value) -> Result<Scenario, FileError> {
         let copy = value.clone();
-        serde_path_to_error::deserialize(value).map_err(|e| {
-            let path = e.path().to_string();
-            let path = if path == "." { String::new() } else { path };
+        let s: Scenario = serde_path_to_error::deserialize(value).map_err(|e| {
+            // Dotted like the input errors' paths (`states.0.deflection`),
+            // not serde's `states[0].deflection`.
+            let path = e
+                .path()
+                .iter()
+                .map(|seg| match seg {
+                    serde_path_to_error::Segment::Seq { index } => index.to_string(),
+                    serde_path_to_error::Segment::Map { key } => key.clone(),
+                    serde_path_to_error::Segment::Enum { variant } => variant.clone(),
+                    serde_path_to_error::Segment::Unknown => "?".to_string(),
+                })
+                .collect::<Vec<_>>()
+                .join(".");
             let message = e.into_inner().to_string();
             // Inside an internally tagged enum (`"kind": ...`) serde buffers
             // the content and the path stops at the enum; find the offending
-            // numeric input below it when the message says one was expected.
-            let path = if message.contains("invalid type") {
-                refine_value_path(&copy, &path, &message).unwrap_or(path)
-            } else {
-                path
-            };
+            // key or value below it.
+            let path = refine_path(&copy, &path, &message).unwrap_or(path);
             FileError { path, message }
-        })
+        })?;
+        if s.schema_version != SCHEMA_VERSION {
+            return Err(FileError {
+                path: "schema_version".into(),
+                message: format!(
+                    "format version {} where version {SCHEMA_VERSION} was expected; \
+                     read files with Scenario::from_json, which upgrades older versions",
+                    s.schema_version
+                ),
+            });
+        }
+        Ok(s)
     }
 
     /// The scenario as pretty JSON with the SI value of every input filled
@@ -914,18 +1014,102 @@ impl Scenario {
     }
 }
 
-/// Below `path`, the field holding the value an "invalid type" message
-/// quotes (`integer `86``, `string "12 mm"`), where a numeric input (an
-/// object with a `text`) was expected. Only an exact match is reported, so
-/// the refined path is never a guess.
-fn refine_value_path(root: &serde_json::Value, path: &str, message: &str) -> Option<String> {
-    let found = message.split("invalid type: ").nth(1)?;
-    let wanted: serde_json::Value = if let Some(rest) = found.strip_prefix("string \"") {
-        serde_json::Value::String(rest.split('"').next()?.to_string())
-    } else {
-        let num = found.split('`').nth(1)?;
-        serde_json::from_str(num).ok()?
-    };
+/// The name of a UTF-16 or UTF-32 encoding, recognised by its byte-order
+/// mark or, without one, by the zero bytes ASCII text has in those
+/// encodings (`{` as `7B 00` or `00 7B`).
+fn utf16_or_32(bytes: &[u8]) -> Option<&'static str> {
+    if bytes.starts_with(&[0xFF, 0xFE, 0, 0]) || bytes.starts_with(&[0, 0, 0xFE, 0xFF]) {
+        return Some("UTF-32");
+    }
+    if bytes.starts_with(&[0xFF, 0xFE]) || bytes.starts_with(&[0xFE, 0xFF]) {
+        return Some("UTF-16");
+    }
+    match bytes.get(..2) {
+        Some([0, b]) | Some([b, 0]) if b.is_ascii_graphic() || b.is_ascii_whitespace() => {
+            Some("UTF-16 (without a byte-order mark)")
+        }
+        _ => None,
+    }
+}
+
+/// What an error message from serde names, to be found in the file.
+#[derive(Debug, PartialEq)]
+enum Quoted {
+    /// An unknown field's key.
+    Key(String),
+    /// A value: a string, a whole number, a number with a fraction, a flag.
+    Str(String),
+    Int(f64),
+    Float(f64),
+    Bool(bool),
+    Null,
+    /// A list where something else was expected.
+    Seq,
+    /// An object where something else was expected.
+    Map,
+}
+
+impl Quoted {
+    /// The thing a serde message quotes: `unknown field `zz``, `unknown
+    /// variant `elbow``, `invalid type: string "12 mm"`, `invalid value:
+    /// integer `-1``, `floating point `1.5``, `boolean `true``, `null`.
+    fn from_message(message: &str) -> Option<Quoted> {
+        let backticked = |rest: &str| rest.split('`').nth(1).map(str::to_string);
+        if let Some(rest) = message.strip_prefix("unknown field ") {
+            return backticked(rest).map(Quoted::Key);
+        }
+        if let Some(rest) = message.strip_prefix("unknown variant ") {
+            return backticked(rest).map(Quoted::Str);
+        }
+        let found = message
+            .strip_prefix("invalid type: ")
+            .or_else(|| message.strip_prefix("invalid value: "))?;
+        let found = found.rsplit_once(", expected").map_or(found, |(f, _)| f);
+        if let Some(rest) = found.strip_prefix("string ") {
+            // serde quotes strings with Rust's escapes; plain text reads as JSON.
+            return serde_json::from_str::<String>(rest).ok().map(Quoted::Str);
+        }
+        let number = |rest: &str| backticked(rest).and_then(|n| n.parse::<f64>().ok());
+        if let Some(rest) = found.strip_prefix("integer ") {
+            return number(rest).map(Quoted::Int);
+        }
+        if let Some(rest) = found.strip_prefix("floating point ") {
+            return number(rest).map(Quoted::Float);
+        }
+        if let Some(rest) = found.strip_prefix("boolean ") {
+            return backticked(rest).map(|b| Quoted::Bool(b == "true"));
+        }
+        match found {
+            "null" => Some(Quoted::Null),
+            "sequence" => Some(Quoted::Seq),
+            "map" => Some(Quoted::Map),
+            _ => None,
+        }
+    }
+
+    fn is_value(&self, v: &serde_json::Value) -> bool {
+        use serde_json::Value as J;
+        match (self, v) {
+            (Quoted::Str(a), J::String(b)) => a == b,
+            (Quoted::Int(a), J::Number(n)) if !n.is_f64() => n.as_f64() == Some(*a),
+            (Quoted::Float(a), J::Number(n)) if n.is_f64() => n.as_f64() == Some(*a),
+            (Quoted::Bool(a), J::Bool(b)) => a == b,
+            (Quoted::Null, J::Null) | (Quoted::Seq, J::Array(_)) | (Quoted::Map, J::Object(_)) => {
+                true
+            }
+            _ => false,
+        }
+    }
+}
+
+/// Below `path`, the exact field a serde message points at. Inside an
+/// internally tagged enum (`"kind": ...`) serde buffers the content and the
+/// path it reports stops at the enum (`part`); the message still quotes the
+/// offending key or value (`unknown field `zz``, `invalid type: integer
+/// `5``), so the subtree is searched for it. Only a single match refines the
+/// path, so the refined path is never a guess.
+fn refine_path(root: &serde_json::Value, path: &str, message: &str) -> Option<String> {
+    let wanted = Quoted::from_message(message)?;
     let mut node = root;
     for seg in path.split('.').filter(|s| !s.is_empty()) {
         node = match node {
@@ -934,36 +1118,41 @@ fn refine_value_path(root: &serde_json::Value, path: &str, message: &str) -> Opt
             _ => return None,
         };
     }
-    fn search(
-        node: &serde_json::Value,
-        wanted: &serde_json::Value,
-        prefix: &str,
-        depth: u32,
-        hits: &mut Vec<String>,
-    ) {
-        let serde_json::Value::Object(m) = node else {
+    fn join(prefix: &str, seg: &str) -> String {
+        if prefix.is_empty() {
+            seg.to_string()
+        } else {
+            format!("{prefix}.{seg}")
+        }
+    }
+    fn search(node: &serde_json::Value, wanted: &Quoted, prefix: &str, hits: &mut Vec<String>) {
+        // Two hits already make the answer ambiguous: stop looking.
+        if hits.len() > 1 {
             return;
+        }
+        let children: Vec<(String, &serde_json::Value)> = match node {
+            serde_json::Value::Object(m) => m.iter().map(|(k, v)| (join(prefix, k), v)).collect(),
+            serde_json::Value::Array(a) => a
+                .iter()
+                .enumerate()
+                .map(|(i, v)| (join(prefix, &i.to_string()), v))
+                .collect(),
+            _ => return,
         };
-        for (k, v) in m {
-            let p = if prefix.is_empty() {
-                k.clone()
-            } else {
-                format!("{prefix}.{k}")
+        for (p, v) in children {
+            let key = p.rsplit('.').next().unwrap_or("");
+            let hit = match wanted {
+                Quoted::Key(k) => node.is_object() && key == k,
+                other => other.is_value(v),
             };
-            let same = match (v.as_f64(), wanted.as_f64()) {
-                (Some(a), Some(b)) => a == b,
-                _ => v == wanted,
-            };
-            if same {
-                hits.push(p);
-            } else if depth > 0 && v.is_object() && v.get("text").is_none() {
-                search(v, wanted, &p, depth - 1, hits);
+            if hit {
+                hits.push(p.clone());
             }
+            search(v, wanted, &p, hits);
         }
     }
     let mut hits = Vec::new();
-    search(node, &wanted, path, 2, &mut hits);
-    // Only a single, unambiguous match refines the path.
+    search(node, &wanted, path, &mut hits);
     (hits.len() == 1).then(|| hits.remove(0))
 }
 

@@ -12,6 +12,44 @@ use super::value::{parse_tolerance, read_si, Spread, TolText, Value};
 use crate::error::{check, InputError};
 use crate::units::Dim;
 
+/// Largest magnitude of any input in SI units (1e12: a terajoule, a
+/// million tonnes, a thousand kilometres of travel). Every real machine
+/// input is many orders below it; what lies beyond is a typing slip or a
+/// hostile file, and refusing it keeps every product of a few inputs far
+/// from overflow, so no figure can become infinite or NaN.
+pub const MAX_MAGNITUDE: f64 = 1e12;
+
+/// Smallest non-zero magnitude of any input in SI units (1e-12: a
+/// picometre, a nanogram, a piconewton). Smaller non-zero values are slips
+/// (a unit typed wrong by many prefixes) and would make quotients overflow.
+pub const MIN_MAGNITUDE: f64 = 1e-12;
+
+/// Refuse a value outside the magnitudes Joulewise accepts
+/// ([`MIN_MAGNITUDE`] to [`MAX_MAGNITUDE`] in SI units, or zero), naming the
+/// field and the SI unit.
+fn plausible(field: &str, v: f64, dim: Dim) -> Result<f64, InputError> {
+    let m = v.abs();
+    if m == 0.0 || (MIN_MAGNITUDE..=MAX_MAGNITUDE).contains(&m) {
+        return Ok(v);
+    }
+    let unit = match dim.si_symbol() {
+        "" => String::new(),
+        u => format!(" {u}"),
+    };
+    let which = if m > MAX_MAGNITUDE {
+        "too large"
+    } else {
+        "too small"
+    };
+    Err(InputError::invalid(
+        field,
+        format!(
+            "{which} to be a real value: Joulewise accepts magnitudes from 1e-12{unit} to \
+             1e12{unit} (in SI units), or 0 where zero is allowed; check the number and its unit"
+        ),
+    ))
+}
+
 /// What an input must satisfy beyond being a finite quantity of its kind.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum Rule {
@@ -155,13 +193,19 @@ impl<'a> Reader<'a> {
             self.cursor += 1;
             // Perturbed values obey the same rule; a sample that breaks it is
             // reported by the study as a failed evaluation.
-            return v.and_then(|v| rule.apply(field, v).ok());
+            return v.and_then(|v| {
+                rule.apply(field, v)
+                    .and_then(|v| plausible(field, v, dim))
+                    .ok()
+            });
         }
         let path = self.path(field);
         let parsed = if value.is_blank() {
             Err(InputError::new(&path, crate::error::Problem::Empty))
         } else {
-            read_si(&path, value, dim, default_unit).and_then(|v| rule.apply(&path, v))
+            read_si(&path, value, dim, default_unit)
+                .and_then(|v| rule.apply(&path, v))
+                .and_then(|v| plausible(&path, v, dim))
         };
         let tol = match parse_tolerance(&value.tol, dim, default_unit) {
             Ok(t) => t,
@@ -204,10 +248,16 @@ impl<'a> Reader<'a> {
         if let Mode::Replay(values) = self.mode {
             let v = values.get(self.cursor).copied();
             self.cursor += 1;
-            return v.and_then(|v| rule.apply(field, v).ok());
+            return v.and_then(|v| {
+                rule.apply(field, v)
+                    .and_then(|v| plausible(field, v, dim))
+                    .ok()
+            });
         }
         let path = self.path(field);
-        let checked = rule.apply(&path, value);
+        let checked = rule
+            .apply(&path, value)
+            .and_then(|v| plausible(&path, v, dim));
         let si = match checked {
             Ok(v) => Some(v),
             Err(e) => {
@@ -296,6 +346,27 @@ mod tests {
         assert_eq!(r.errors.len(), 1);
         assert_eq!(r.errors[0].field, "spring.rate");
         assert_eq!(r.records.len(), 2);
+    }
+
+    #[test]
+    fn absurd_magnitudes_are_refused_with_the_field_and_unit() {
+        let mut r = Reader::record();
+        for text in ["1e300 kg", "1e13 kg", "1e-13 kg", "-2e12 kg"] {
+            let v = r.num("mass", &Value::new(text), Dim::Mass, "kg", Rule::Any);
+            assert_eq!(v, None, "{text}");
+        }
+        assert_eq!(r.errors.len(), 4);
+        assert!(r.errors.iter().all(|e| e.field == "mass"));
+        assert!(r.errors[0].message().contains("1e12 kg"), "{}", r.errors[0]);
+        // Zero, and the ends of the band, are accepted.
+        for text in ["0", "-0", "1e12 kg", "1e-12 kg", "-1e12 kg"] {
+            let v = r.num("mass", &Value::new(text), Dim::Mass, "kg", Rule::Any);
+            assert!(v.is_some(), "{text}");
+        }
+        let vals = [1e300];
+        let mut r = Reader::replay(&vals);
+        let v = Value::new("ignored");
+        assert_eq!(r.num("a", &v, Dim::Mass, "kg", Rule::Positive), None);
     }
 
     #[test]

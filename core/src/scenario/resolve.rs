@@ -337,6 +337,15 @@ pub fn resolve(s: &Scenario, r: &mut Reader<'_>) -> Model {
         .sizing
         .as_ref()
         .map(|z| r.within("sizing", |r| sizing(z, r)));
+    if s.study.monte_carlo && !(1..=MAX_STUDY_SAMPLES).contains(&s.study.samples) && !r.is_replay()
+    {
+        r.within("study", |r| {
+            r.error(
+                "samples",
+                format!("the Monte Carlo study takes 1 to {MAX_STUDY_SAMPLES} samples"),
+            );
+        });
+    }
     let cycles_per_hour = r
         .or(
             "cycles_per_hour",

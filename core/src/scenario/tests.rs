@@ -306,3 +306,161 @@ fn a_cross_check_by_a_second_method_is_compared_not_used() {
     );
     assert!(r.value(crate::identify::ids::IDENTIFY_RATE).is_some());
 }
+
+#[test]
+fn files_in_another_encoding_or_too_large_are_refused_with_the_reason() {
+    let text = demos::ejector().to_json();
+    // A UTF-8 byte-order mark (Windows editors write one) is skipped.
+    let with_bom = [b"\xEF\xBB\xBF".as_slice(), text.as_bytes()].concat();
+    assert!(Scenario::from_bytes(&with_bom).is_ok());
+    assert!(Scenario::from_json(&format!("\u{feff}{text}")).is_ok());
+    let utf16: Vec<u8> = "\u{feff}{}"
+        .encode_utf16()
+        .flat_map(u16::to_le_bytes)
+        .collect();
+    let e = Scenario::from_bytes(&utf16).unwrap_err();
+    assert!(e.message.contains("UTF-16"), "{e}");
+    // Latin-1 writes the ejector's "±" (UTF-8 C2 B1) as the single byte B1.
+    let mut bytes = text.clone().into_bytes();
+    let at = bytes.windows(2).position(|w| w == [0xC2, 0xB1]).unwrap();
+    bytes.remove(at);
+    let e = Scenario::from_bytes(&bytes).unwrap_err();
+    assert!(
+        e.message.contains("not UTF-8") && e.message.contains("0xB1"),
+        "{e}"
+    );
+    let big = vec![b' '; MAX_FILE_BYTES + 1];
+    let e = Scenario::from_bytes(&big).unwrap_err();
+    assert!(e.message.contains("at most 4 MB"), "{e}");
+    assert!(Scenario::from_bytes(b"")
+        .unwrap_err()
+        .message
+        .contains("empty"));
+}
+
+#[test]
+fn truncated_and_deeply_nested_files_say_so() {
+    let text = demos::guard_door().to_json();
+    let e = Scenario::from_json(text.get(..text.len() / 2).unwrap_or("")).unwrap_err();
+    assert!(e.message.contains("ends before"), "{e}");
+    let deep = format!("{}{}", "[".repeat(10_000), "]".repeat(10_000));
+    let e = Scenario::from_json(&deep).unwrap_err();
+    assert!(e.message.contains("nested deeper"), "{e}");
+}
+
+#[test]
+fn errors_inside_a_tagged_choice_name_the_exact_field() {
+    let base: serde_json::Value = serde_json::from_str(&demos::guard_door().to_json()).unwrap();
+    let cases = [
+        (
+            "/part/travel/text",
+            serde_json::json!(5),
+            "part.travel.text",
+        ),
+        (
+            "/contact/region",
+            serde_json::json!("elbow"),
+            "contact.region",
+        ),
+        (
+            "/spring/model/rate/tol",
+            serde_json::json!(3),
+            "spring.model.rate.tol",
+        ),
+        (
+            "/gap/body_parts/1",
+            serde_json::json!(42),
+            "gap.body_parts.1",
+        ),
+    ];
+    for (pointer, wrong, want) in cases {
+        let mut v = base.clone();
+        *v.pointer_mut(pointer).unwrap() = wrong;
+        let e = Scenario::from_json(&v.to_string()).unwrap_err();
+        assert_eq!(e.path, want, "{e}");
+    }
+    let mut v = base.clone();
+    v["part"]["inertia"]["mass"]["unit"] = serde_json::json!("kg");
+    let e = Scenario::from_json(&v.to_string()).unwrap_err();
+    assert_eq!(e.path, "part.inertia.mass.unit", "{e}");
+}
+
+#[test]
+fn a_study_asking_for_too_many_samples_says_so() {
+    for samples in [0, MAX_STUDY_SAMPLES + 1, u32::MAX] {
+        let mut s = demos::carriage_stop();
+        s.study.samples = samples;
+        let r = assess(&s).unwrap();
+        assert!(
+            r.errors.iter().any(|e| e.field == "study.samples"),
+            "{samples}: {:?}",
+            r.errors
+        );
+    }
+    let mut s = demos::carriage_stop();
+    s.study.samples = 2_000;
+    assert!(assess(&s).unwrap().errors.is_empty());
+}
+
+#[test]
+fn absurd_and_non_finite_texts_are_input_errors_naming_the_field() {
+    for text in ["NaN", "inf", "-inf", "∞", "1e300 kg", "1e13", "1e-20 kg"] {
+        let mut s = demos::carriage_stop();
+        if let PartInput::Translating(t) = &mut s.part {
+            t.mass = Value::new(text);
+        }
+        let r = assess(&s).unwrap();
+        assert_eq!(r.errors.len(), 1, "{text}: {:?}", r.errors);
+        assert_eq!(r.errors[0].field, "part.mass", "{text}");
+        assert!(r.value(ids::RELEASE_CONTACT_SPEED).is_none(), "{text}");
+    }
+}
+
+/// Found by the structure-aware fuzz target: `from_value` let a scenario of
+/// another format version through, and `assess` then refused it; the
+/// refusal now comes where the value is read, naming the field.
+#[test]
+fn from_value_refuses_another_format_version() {
+    let mut v = serde_json::to_value(demos::ejector()).unwrap();
+    v["schema_version"] = serde_json::json!(0);
+    let e = Scenario::from_value(v).unwrap_err();
+    assert_eq!(e.path, "schema_version", "{e}");
+}
+
+/// Found by the structure-aware fuzz target: a measured-table buffer whose
+/// unloading curve starts at 20 mm, with a 1 mm preload, cannot be built;
+/// the impact figures were missing without a reason and the error sat in
+/// the notes under `contact.law.law.preload_deflection`. It is now an input
+/// error on `contact.law.preload_deflection` and the reason the impact
+/// figures are missing.
+#[test]
+fn a_buffer_whose_inputs_do_not_fit_together_is_an_input_error() {
+    let mut s = demos::carriage_stop();
+    let pt = |q: &str, f: &str| PointInput {
+        deflection: Value::new(q),
+        force: Value::new(f),
+    };
+    s.contact = ContactInput::Buffer(BufferInput {
+        law: BufferLawInput::Spring {
+            model: SpringModelInput::Table(TableInput {
+                axis: crate::spring::Axis::Linear,
+                loading: vec![pt("0", "0"), pt("20", "2000"), pt("40", "9000")],
+                unloading: vec![pt("20", "800"), pt("40", "6000")],
+            }),
+            preload_deflection: Some(Value::new("1 mm")),
+        },
+        count: 1,
+        restitution: None,
+        radius: None,
+    });
+    let r = assess(&s).unwrap();
+    assert_eq!(r.errors.len(), 1, "{:?}", r.errors);
+    assert_eq!(r.errors[0].field, "contact.law.preload_deflection");
+    let f = r.figure(ids::IMPACT_PEAK_FORCE).unwrap();
+    assert!(f.value.is_none());
+    assert!(
+        f.missing.iter().any(|m| m.contains("preload_deflection")),
+        "{:?}",
+        f.missing
+    );
+}

@@ -398,6 +398,28 @@ pub struct SizedBuffer {
 }
 
 impl SizedBuffer {
+    /// Whether every number of the design is finite.
+    fn is_finite(&self) -> bool {
+        let numbers = [
+            self.stroke,
+            self.peak_force,
+            self.peak_deceleration,
+            self.mean_deceleration,
+            self.stop_time,
+            self.energy_per_cycle,
+            self.effective_mass,
+            self.energy_per_hour,
+            self.heat_load,
+            self.residual_speed,
+            self.residual_energy,
+        ];
+        let margins = self
+            .margins
+            .iter()
+            .flat_map(|m| [m.limit_value, m.value, m.ratio.unwrap_or(0.0), m.difference]);
+        numbers.into_iter().chain(margins).all(f64::is_finite)
+    }
+
     /// Whether every margin passes.
     pub fn meets_all_limits(&self) -> bool {
         self.margins.iter().all(|m| m.verdict == Verdict::Pass)
@@ -562,10 +584,12 @@ pub fn size_buffer(input: &SizingInput, buffer: &BufferType) -> Result<SizingOut
         ek: 0.5 * m * v * v,
         fnet: fd + fg - ff,
     };
-    if !(duty.ek.is_finite() && duty.fnet.is_finite()) {
+    // A positive speed and mass of extreme size can underflow the energy to
+    // 0 (then 0/0 in the mean deceleration) or overflow it.
+    if !(duty.ek.is_finite() && duty.ek > 0.0 && duty.fnet.is_finite()) {
         return Err(InputError::invalid(
             "impact_speed",
-            "mass, speed and forces give no finite energy",
+            "mass, speed and forces give no finite, positive kinetic energy: check their sizes and units",
         ));
     }
 
@@ -621,9 +645,12 @@ pub fn size_buffer(input: &SizingInput, buffer: &BufferType) -> Result<SizingOut
 
     let sup = law.stroke_sup(&duty);
     let result = if reasons.is_empty() {
+        // A design whose numbers overflow (a stroke of extreme size) is
+        // reported as not solved, never handed on with NaN in it.
         let make = |s: f64| -> Option<SizedBuffer> {
             law.at_stroke(&duty, s)
                 .map(|p| finish(p, &duty, n_per_h, &lim))
+                .filter(SizedBuffer::is_finite)
         };
         let req_design = match required {
             Some((s, _)) => match make(s) {

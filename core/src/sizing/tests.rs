@@ -986,3 +986,34 @@ proptest! {
         }
     }
 }
+
+/// Found by the property tests in `tests/properties.rs`: an impact speed of
+/// 2.2e-308 m/s underflowed the kinetic energy to 0 and the mean
+/// deceleration came out 0/0 = NaN; a stroke of 1e-300 m gave a design
+/// with NaN in it. The energy must be positive, and a design whose numbers
+/// are not finite is reported as not solved.
+#[test]
+fn extreme_speeds_and_strokes_give_no_nan() {
+    let stroke_only = SizingLimits {
+        stroke: Some(1.0),
+        ..SizingLimits::default()
+    };
+    let e = size_buffer(
+        &input(1.0, 2.2e-308, 1.0, stroke_only),
+        &BufferType::LinearSpring,
+    )
+    .unwrap_err();
+    assert_eq!(e.field, "impact_speed", "{e}");
+    let tiny = SizingLimits {
+        stroke: Some(1e-300),
+        ..SizingLimits::default()
+    };
+    let o = size_buffer(&input(1.0, 1.0, 1.0, tiny), &BufferType::LinearSpring).unwrap();
+    if let SizingResult::Feasible {
+        using_available_stroke: Some(d),
+        ..
+    } = &o.result
+    {
+        assert!(d.is_finite(), "{d:?}");
+    }
+}

@@ -14,6 +14,16 @@
 //! deflection, exact up to the bisection resolution (2⁻⁶⁰ of the brackets).
 //! Series members must have a rising characteristic (checked by sampling).
 //!
+//! Bounded work: a series stack's force costs two nested bisections per
+//! evaluation (60 × 60 member evaluations for each member), and the release
+//! integrator asks for it thousands of times. Combinations are therefore
+//! flattened (a series inside a series, or a parallel group inside a
+//! parallel group, is the same law with its members listed in place), hold
+//! at most [`MAX_COMBINED_SPRINGS`] springs in all, and a series stack may
+//! not contain another series stack inside a parallel group (the bisections
+//! would nest four deep). A larger or deeper arrangement is refused with an
+//! input error saying so, never left to run for minutes.
+//!
 //! Design choice: combinations hold members as [`SpringModel`] values (an
 //! enum), not `Box<dyn Spring>`: the enum is `Clone`, `Send + Sync`,
 //! serialisable and comparable, so a combined spring can be copied into a
@@ -73,7 +83,7 @@ impl SpringSpec {
                 .map(|(i, s)| s.build().map_err(|e| e.within(&format!("members.{i}"))))
                 .collect()
         };
-        Ok(match self {
+        let model = match self {
             SpringSpec::Linear(s) => SpringModel::Linear(LinearSpring::new(s.clone())?),
             SpringSpec::Helical(s) => SpringModel::Helical(HelicalSpring::new(s.clone())?),
             SpringSpec::Extension(s) => SpringModel::Extension(ExtensionSpring::new(s.clone())?),
@@ -85,8 +95,43 @@ impl SpringSpec {
             SpringSpec::Parallel { members: m } => {
                 SpringModel::Parallel(Parallel::new(members(m)?)?)
             }
-        })
+        };
+        check_finite_over_range(&model)?;
+        Ok(model)
     }
+}
+
+/// Refuse a model whose force or energy over its admissible range is not a
+/// finite number: inputs that each pass their own check can still be of a
+/// size whose products overflow (a stroke of 1e308 m, a rate of 1e300 N/m
+/// over a long travel). The error names the input most likely at fault.
+fn check_finite_over_range(model: &SpringModel) -> Result<(), InputError> {
+    let (lo, hi) = model.deflection_range();
+    let mid = lo + 0.5 * (hi - lo);
+    let finite = [lo, mid, hi].into_iter().all(|q| {
+        [Travel::Loading, Travel::Unloading].into_iter().all(|t| {
+            q.is_finite()
+                && model.force(q, t).is_finite()
+                && model.work(lo, q, t).is_finite()
+                && model.rate(q).is_finite()
+        })
+    }) && model.effective_mass().is_finite();
+    if finite {
+        return Ok(());
+    }
+    let field = match model {
+        SpringModel::Linear(_) | SpringModel::Extension(_) | SpringModel::Torsion(_) => "rate",
+        SpringModel::Helical(_) => "wire_diameter",
+        SpringModel::Gas(_) => "stroke",
+        SpringModel::Disc(_) => "thickness",
+        SpringModel::Table(_) => "loading",
+        SpringModel::Series(_) | SpringModel::Parallel(_) => "members",
+    };
+    Err(InputError::invalid(
+        field,
+        "the force or stored energy over the spring's range is not a finite number: \
+         check the sizes and units of its inputs",
+    ))
 }
 
 /// Any validated spring; implements [`Spring`] by delegation.
@@ -191,6 +236,45 @@ impl Spring for SpringModel {
     }
 }
 
+/// Most springs in one combination, counting the members of nested
+/// combinations: enough for any real stack or group (disc-spring stacks are
+/// one model, [`super::DiscStack`]); a series stack of this many members
+/// still evaluates in well under a second for a whole release.
+pub const MAX_COMBINED_SPRINGS: usize = 16;
+
+/// Springs in a model, counting the members of combinations.
+fn leaves(m: &SpringModel) -> usize {
+    match m {
+        SpringModel::Series(s) => s.members.iter().map(leaves).sum(),
+        SpringModel::Parallel(p) => p.members.iter().map(leaves).sum(),
+        _ => 1,
+    }
+}
+
+/// Whether a series stack sits anywhere in the model.
+fn holds_series(m: &SpringModel) -> bool {
+    match m {
+        SpringModel::Series(_) => true,
+        SpringModel::Parallel(p) => p.members.iter().any(holds_series),
+        _ => false,
+    }
+}
+
+/// Refuse a combination with more than [`MAX_COMBINED_SPRINGS`] springs.
+fn check_count(members: &[SpringModel]) -> Result<(), InputError> {
+    let n: usize = members.iter().map(leaves).sum();
+    if n > MAX_COMBINED_SPRINGS {
+        return Err(InputError::invalid(
+            "members",
+            format!(
+                "at most {MAX_COMBINED_SPRINGS} springs in one combination (this one has {n}); \
+                 for a longer stack give its measured force–deflection table"
+            ),
+        ));
+    }
+    Ok(())
+}
+
 fn common_axis(members: &[SpringModel]) -> Result<Axis, InputError> {
     let Some(first) = members.first() else {
         return Err(InputError::invalid(
@@ -255,8 +339,18 @@ impl Parallel {
     /// Combine members; their admissible ranges must overlap.
     ///
     /// # Errors
-    /// No members; mixed axes; ranges that do not overlap.
+    /// No members; mixed axes; ranges that do not overlap; more than
+    /// [`MAX_COMBINED_SPRINGS`] springs in all.
     pub fn new(members: Vec<SpringModel>) -> Result<Self, InputError> {
+        // A parallel group inside a parallel group is the same law.
+        let members: Vec<SpringModel> = members
+            .into_iter()
+            .flat_map(|m| match m {
+                SpringModel::Parallel(p) => p.members,
+                other => vec![other],
+            })
+            .collect();
+        check_count(&members)?;
         let axis = common_axis(&members)?;
         let range = members
             .iter()
@@ -350,8 +444,28 @@ impl Series {
     ///
     /// # Errors
     /// No members; mixed axes; a member whose force falls with deflection on
-    /// either branch (the split would not be unique).
+    /// either branch (the split would not be unique); more than
+    /// [`MAX_COMBINED_SPRINGS`] springs in all; a member that holds a series
+    /// stack inside a parallel group.
     pub fn new(members: Vec<SpringModel>) -> Result<Self, InputError> {
+        // A series stack inside a series stack is the same law, its members
+        // listed in place (the order from the fixed end is kept).
+        let members: Vec<SpringModel> = members
+            .into_iter()
+            .flat_map(|m| match m {
+                SpringModel::Series(s) => s.members,
+                other => vec![other],
+            })
+            .collect();
+        check_count(&members)?;
+        if let Some(i) = members.iter().position(holds_series) {
+            return Err(InputError::invalid(
+                format!("members.{i}"),
+                "a series stack cannot hold another series stack inside a parallel group \
+                 (solving it would take minutes); give that group's measured \
+                 force–deflection table instead",
+            ));
+        }
         let axis = common_axis(&members)?;
         for (i, m) in members.iter().enumerate() {
             let (lo, hi) = m.deflection_range();
@@ -719,6 +833,68 @@ mod tests {
         .build()
         .unwrap_err();
         assert_eq!(e.field, "members.0");
+    }
+
+    /// From the structure-aware fuzz target, which wraps springs in
+    /// combinations: a series pair already costs 60 × 60 member evaluations
+    /// per force, and series inside parallel inside series nests the
+    /// bisections four deep (tens of millions of evaluations per force,
+    /// minutes per release). Nesting of one kind is flattened (the same
+    /// law), the total is bounded, and series-in-parallel-in-series is
+    /// refused.
+    #[test]
+    fn nested_combinations_are_flattened_bounded_or_refused() {
+        let pair = || SpringSpec::Series {
+            members: vec![linear(1000.0, 0.05), linear(1000.0, 0.05)],
+        };
+        let nested = SpringSpec::Series {
+            members: vec![
+                pair(),
+                SpringSpec::Series {
+                    members: vec![pair()],
+                },
+            ],
+        }
+        .build()
+        .unwrap();
+        let SpringModel::Series(flat) = &nested else {
+            panic!("a series stays a series")
+        };
+        assert_eq!(flat.members().len(), 4);
+        // Four 1000 N/m springs in series: 250 N/m.
+        assert!((nested.rate(0.04) - 250.0).abs() < REL_SERIES * 250.0);
+        let groups = SpringSpec::Parallel {
+            members: vec![
+                SpringSpec::Parallel {
+                    members: vec![linear(1.0, 0.1), linear(2.0, 0.1)],
+                },
+                linear(3.0, 0.1),
+            ],
+        }
+        .build()
+        .unwrap();
+        let SpringModel::Parallel(flat) = &groups else {
+            panic!("a parallel group stays one")
+        };
+        assert_eq!(flat.members().len(), 3);
+        let deep = SpringSpec::Series {
+            members: vec![
+                SpringSpec::Parallel {
+                    members: vec![pair(), linear(1000.0, 0.1)],
+                },
+                linear(1000.0, 0.1),
+            ],
+        }
+        .build()
+        .unwrap_err();
+        assert_eq!(deep.field, "members.0");
+        let many = SpringSpec::Parallel {
+            members: vec![linear(1.0, 0.1); MAX_COMBINED_SPRINGS + 1],
+        }
+        .build()
+        .unwrap_err();
+        assert_eq!(many.field, "members");
+        assert!(many.message().contains("at most 16"), "{many}");
     }
 
     #[test]

@@ -137,7 +137,18 @@ impl DiscStack {
             DiscConstant::En16984K1 => k1(delta),
             DiscConstant::AlmenLaszloM => almen_laszlo_m(delta),
         };
-        let c = 4.0 * e * t / ((1.0 - mu * mu) * k * de * de);
+        let c = check::derived(
+            "thickness",
+            4.0 * e * t / ((1.0 - mu * mu) * k * de * de),
+            "a disc constant 4·E·t/((1 − μ²)·K₁·D_e²)",
+        )?;
+        // The force of a disc pressed flat, C·h₀·t², bounds every force of
+        // the stack; it must be a number too.
+        check::derived(
+            "thickness",
+            c * spec.cone_height * t * t,
+            "a flat-disc force C·h₀·t²",
+        )?;
         let (load_factor, unload_factor) = match spec.friction {
             None => (1.0, 1.0),
             Some(fr) => {
@@ -460,5 +471,34 @@ mod tests {
                 testkit::check_energy_monotone(&s, tv);
             }
         }
+    }
+}
+
+/// Inputs each valid but of extreme size (found by the property tests in
+/// `tests/properties.rs`).
+#[cfg(test)]
+mod extreme_inputs {
+    use super::*;
+
+    /// A thickness of 1.8e306 m made the force ∞ and, at zero deflection,
+    /// ∞·0 = NaN; the disc constant and the flat-disc force must now be
+    /// finite.
+    #[test]
+    fn a_disc_whose_force_overflows_is_refused() {
+        let e = DiscStack::new(DiscSpec {
+            outer_diameter: 0.1,
+            inner_diameter: 0.05,
+            thickness: 1.8e306,
+            cone_height: 0.01,
+            youngs_modulus: 2.06e11,
+            poisson_ratio: 0.3,
+            in_series: 1,
+            in_parallel: 1,
+            constant: DiscConstant::En16984K1,
+            friction: None,
+            density: None,
+        })
+        .unwrap_err();
+        assert_eq!(e.field, "thickness", "{e}");
     }
 }

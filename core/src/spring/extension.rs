@@ -113,10 +113,12 @@ impl ExtensionSpring {
                     .material
                     .resolve(g.tensile_strength)
                     .map_err(|e| e.within("rate"))?;
-                (
+                let rate = check::derived(
+                    "rate.wire_diameter",
                     helical_rate(m.shear_modulus, d, mean, n),
-                    Some((d, mean, n, m)),
-                )
+                    "a rate G·d⁴/(8·D³·n)",
+                )?;
+                (rate, Some((d, mean, n, m)))
             }
         };
         Ok(Self {

@@ -299,7 +299,11 @@ impl HelicalSpring {
                 ),
             ));
         }
-        let rate = helical_rate(material.shear_modulus, d, mean_d, n);
+        let rate = check::derived(
+            "wire_diameter",
+            helical_rate(material.shear_modulus, d, mean_d, n),
+            "a rate G·d⁴/(8·D³·n)",
+        )?;
         Ok(Self {
             spec,
             material,
@@ -884,5 +888,37 @@ mod tests {
             // Stress is proportional to force: τ(F) = F·τ(1).
             prop_assert!((s.shear_stress(2.0) - 2.0 * s.shear_stress(1.0)).abs() <= REL_EXACT * s.shear_stress(2.0));
         }
+    }
+}
+
+/// Inputs each valid but of extreme size (found by the property tests in
+/// `tests/properties.rs`).
+#[cfg(test)]
+mod extreme_inputs {
+    use super::*;
+    use crate::spring::material::Grade;
+
+    /// 1e-308 active coils made the rate infinite, and the force at zero
+    /// deflection ∞·0 = NaN; the constructor now refuses a rate that is not
+    /// a finite positive number.
+    #[test]
+    fn a_rate_that_overflows_is_refused() {
+        let e = HelicalSpring::new(HelicalSpec {
+            wire_diameter: 2.5e-3,
+            coil_diameter: CoilDiameter::Mean(16e-3),
+            active_coils: 1e-308,
+            total_coils: Some(2.0),
+            ends: EndType::ClosedGround,
+            free_length: 38e-3,
+            material: Material::Grade {
+                grade: Grade::En10270_1Dh,
+            },
+            solid_length: None,
+            tensile_strength: None,
+            permissible_stress_fraction: None,
+            seating: Seating::BothFixed,
+        })
+        .unwrap_err();
+        assert_eq!(e.field, "wire_diameter", "{e}");
     }
 }

@@ -139,7 +139,7 @@ pub fn analyse(spring: &dyn Spring, states: &[State]) -> Result<StatesReport, In
                 "give the state a name",
             ));
         }
-        if states[..i].iter().any(|o| o.name == s.name) {
+        if states.iter().take(i).any(|o| o.name == s.name) {
             return Err(InputError::invalid(
                 format!("states.{i}.name"),
                 "names must be unique: another state has this name",

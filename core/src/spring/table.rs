@@ -19,6 +19,11 @@
 //! overlap of both curves when an unloading curve is given), so travel
 //! outside the measurement is refused, not guessed.
 
+// The interpolant indexes its own knot arrays: every curve is validated to
+// hold at least two strictly ordered rows before an interpolant is built,
+// and every index is a loop counter or `locate`'s clamped 0..n−1.
+#![allow(clippy::indexing_slicing)]
+
 use super::{Axis, ForceLaw, Spring, Travel};
 use crate::error::{check, InputError};
 use crate::figure::SourceStatus;
@@ -195,6 +200,24 @@ impl Pchip {
         }
     }
 
+    /// Whether every value, slope and integral of the interpolant can be
+    /// evaluated without overflow: the slopes, the cumulative integrals and
+    /// the largest terms of the cubic pieces (|y| and h·|d|, times h for the
+    /// integral, divided by h for the slope) are finite.
+    fn bounded(&self) -> bool {
+        let h: Vec<f64> = self.x.windows(2).map(|w| w[1] - w[0]).collect();
+        let hmax = h.iter().fold(0.0f64, |a, b| a.max(b.abs()));
+        let hmin = h.iter().fold(f64::INFINITY, |a, b| a.min(b.abs()));
+        let ymax = self.y.iter().fold(0.0f64, |a, b| a.max(b.abs()));
+        let hdmax = h.iter().zip(self.d.windows(2)).fold(0.0f64, |a, (hk, dk)| {
+            a.max(hk.abs() * dk.iter().fold(0.0f64, |m, x| m.max(x.abs())))
+        });
+        let term = 4.0 * (ymax + hdmax);
+        self.d.iter().chain(&self.cum).all(|v| v.is_finite())
+            && (term * hmax.max(1.0)).is_finite()
+            && (2.0 * term / hmin).is_finite()
+    }
+
     /// First and last abscissa.
     pub fn span(&self) -> (f64, f64) {
         (self.x[0], self.x[self.x.len() - 1])
@@ -209,6 +232,21 @@ pub struct TableSpring {
     unloading: Option<Pchip>,
     range: (f64, f64),
     notes: Vec<String>,
+}
+
+/// The interpolant of a validated curve, refused when its values are so
+/// large, or its rows so close, that evaluating it would overflow.
+fn interpolant(name: &str, x: Vec<f64>, y: Vec<f64>) -> Result<Pchip, InputError> {
+    let p = Pchip::new(x, y);
+    if p.bounded() {
+        Ok(p)
+    } else {
+        Err(InputError::invalid(
+            name,
+            "the measured values are too large, or the rows too close together, to interpolate: \
+             check the numbers and their units",
+        ))
+    }
 }
 
 fn validate_curve(
@@ -265,14 +303,14 @@ impl TableSpring {
     /// do not overlap; a negative effective mass.
     pub fn new(spec: TableSpec) -> Result<Self, InputError> {
         let (x, y) = validate_curve("loading", &spec.loading, false)?;
-        let loading = Pchip::new(x, y);
+        let loading = interpolant("loading", x, y)?;
         let mut range = loading.span();
         let mut notes = Vec::new();
         let unloading = match &spec.unloading {
             None => None,
             Some(pts) => {
                 let (x, y) = validate_curve("unloading", pts, true)?;
-                let u = Pchip::new(x, y);
+                let u = interpolant("unloading", x, y)?;
                 let (a, b) = u.span();
                 range = (range.0.max(a), range.1.min(b));
                 if range.0 >= range.1 {
@@ -548,5 +586,39 @@ mod tests {
             let wl = s.work(0.0, hi, Travel::Loading);
             prop_assert!((s.hysteresis_loss(0.0, hi) - 0.3 * wl).abs() <= REL_FEW_OPS * wl.max(1e-300));
         }
+    }
+}
+
+/// Inputs each valid but of extreme size (found by the property tests in
+/// `tests/properties.rs`).
+#[cfg(test)]
+mod extreme_inputs {
+    use super::*;
+
+    fn pt(deflection: f64, force: f64) -> TablePoint {
+        TablePoint { deflection, force }
+    }
+
+    /// A row with a force of 1.8e308 N: the Hermite terms overflowed and
+    /// the force between rows came out NaN. Such a table is now refused
+    /// naming the curve; ordinary large values still interpolate.
+    #[test]
+    fn values_that_overflow_the_interpolant_are_refused() {
+        let e = TableSpring::new(TableSpec {
+            axis: Axis::Linear,
+            loading: vec![pt(0.0012, 1.0), pt(1.0, f64::MAX)],
+            unloading: None,
+            effective_mass: None,
+        })
+        .unwrap_err();
+        assert_eq!(e.field, "loading", "{e}");
+        let big = TableSpring::new(TableSpec {
+            axis: Axis::Linear,
+            loading: vec![pt(0.0, 0.0), pt(0.5, 1e12), pt(1.0, 3e12)],
+            unloading: None,
+            effective_mass: None,
+        })
+        .unwrap();
+        assert!(big.force(0.7, Travel::Loading).is_finite());
     }
 }

@@ -130,7 +130,12 @@ impl TorsionSpring {
                         "a torsion spring's rate needs Young's modulus E",
                     ));
                 };
-                (torsion_rate(e, d, mean, n), Some((d, mean, m)))
+                let rate = check::derived(
+                    "rate.wire_diameter",
+                    torsion_rate(e, d, mean, n),
+                    "a rate E·d⁴/(64·D·n)",
+                )?;
+                (rate, Some((d, mean, m)))
             }
         };
         Ok(Self {

@@ -52,6 +52,9 @@ pub enum UnitError {
     Malformed,
     /// NaN, infinity, or a value that overflows once converted.
     NotFinite,
+    /// A number other than zero so small that it becomes zero once
+    /// converted to SI (`4.9e-324 deg`): refused rather than read as 0.
+    Underflow,
     /// A comma followed by exactly three digits: thousands or decimal?
     AmbiguousComma {
         /// The number as typed, e.g. `1,200`.
@@ -116,6 +119,7 @@ impl UnitError {
             UnitError::NoNumber => format!("no number found at the start; {want}"),
             UnitError::Malformed => format!("not a number that can be read; {want}"),
             UnitError::NotFinite => format!("not a finite number; {want}"),
+            UnitError::Underflow => format!("too small to be a real value (it becomes 0); {want}"),
             UnitError::AmbiguousComma { number } => {
                 let (thousands, decimal) = comma_readings(number);
                 format!(
@@ -177,6 +181,7 @@ impl fmt::Display for UnitError {
             UnitError::NoNumber => f.write_str("no number found at the start"),
             UnitError::Malformed => f.write_str("not a number that can be read"),
             UnitError::NotFinite => f.write_str("not a finite number"),
+            UnitError::Underflow => f.write_str("too small to be a real value"),
             UnitError::AmbiguousComma { number } => {
                 write!(f, "\"{number}\": thousands separator or decimal comma?")
             }
@@ -247,6 +252,9 @@ pub fn parse_with_unit(
     if !si.is_finite() {
         return Err(UnitError::NotFinite);
     }
+    if si == 0.0 && magnitude != 0.0 {
+        return Err(UnitError::Underflow);
+    }
     // No negative zero leaves the parser: `-0` is 0.
     Ok((if si == 0.0 { 0.0 } else { si }, unit))
 }
@@ -262,6 +270,13 @@ fn resolve_unit(unit_text: &str, dim: Dim, default_unit: &str) -> Result<&'stati
                 unit: default_unit.to_string(),
             }),
         };
+    }
+    // Separators alone (`5 .`, `5 -`, `5 ·`) normalise to no unit at all;
+    // they are a slip or a cut-off text, never the plain number.
+    if table::Normalized::new(unit_text).next().is_none() {
+        return Err(UnitError::UnknownUnit {
+            unit: unit_text.to_string(),
+        });
     }
     if let Some(u) = find_in(dim, unit_text) {
         return Ok(u);
@@ -343,6 +358,12 @@ impl Scanned {
             slice.parse::<f64>()
         };
         let v = parsed.map_err(|_| UnitError::Malformed)?;
+        // `1e-400` reads as 0.0: a number with a digit other than zero that
+        // vanishes is refused, never read as zero.
+        let mantissa = rest.get(..self.mantissa_end).unwrap_or("");
+        if v == 0.0 && mantissa.bytes().any(|b| (b'1'..=b'9').contains(&b)) {
+            return Err(UnitError::Underflow);
+        }
         if v.is_finite() {
             Ok(v)
         } else {
@@ -1060,6 +1081,37 @@ mod tests {
             );
         }
         assert_eq!(err("12 5 N", Dim::Force, "N"), UnitError::Malformed);
+    }
+
+    /// Found by the property tests: `4.9e-324 deg` and `1e-400 mm` were
+    /// read as 0, silently, so a field that allows zero took them.
+    #[test]
+    fn numbers_that_vanish_are_refused_not_read_as_zero() {
+        for (text, dim) in [
+            ("4.9e-324 deg", Dim::Angle),
+            ("1e-400 mm", Dim::Length),
+            ("1e-400", Dim::Ratio),
+            ("-3e-330 mm", Dim::Length),
+        ] {
+            assert_eq!(err(text, dim, "mm"), UnitError::Underflow, "{text}");
+        }
+        assert_eq!(p("0e-400 mm", Dim::Length, "mm"), 0.0);
+        assert_eq!(p("0.000", Dim::Ratio, ""), 0.0);
+    }
+
+    /// Found by the `units_parse` fuzz target: a unit made only of
+    /// separators normalised to the empty spelling of a plain number, so
+    /// `5 .`, `5 -` and `5 *` read as 5 where a ratio was expected.
+    #[test]
+    fn separators_alone_are_not_a_unit() {
+        for text in ["5 .", "5 -", "5 *", "5 ·", "0 .", "5 . ·"] {
+            assert!(
+                matches!(err(text, Dim::Ratio, ""), UnitError::UnknownUnit { .. }),
+                "{text}"
+            );
+        }
+        assert_eq!(p("5.", Dim::Ratio, ""), 5.0);
+        assert_eq!(p(" 5 ", Dim::Ratio, ""), 5.0);
     }
 
     #[test]

@@ -10,6 +10,9 @@
 //! ```
 //! Exit codes: 0 every check passes; 1 some check fails (or cannot be made);
 //! 2 bad input (the message on stderr names the file, line or field).
+#![forbid(unsafe_code)]
+// No index or slice that could panic on a file's content (as in the library).
+#![cfg_attr(not(test), deny(clippy::indexing_slicing, clippy::string_slice))]
 
 mod register;
 
@@ -194,15 +197,17 @@ impl PartialEq for BatchFormat {
     }
 }
 
-fn read_input(file: &str) -> Result<String> {
+/// The bytes of a scenario file (`-`: standard input); their encoding is
+/// checked by `Scenario::from_bytes`, which names what is wrong.
+fn read_input(file: &str) -> Result<Vec<u8>> {
     if file == "-" {
-        let mut s = String::new();
+        let mut b = Vec::new();
         std::io::stdin()
-            .read_to_string(&mut s)
+            .read_to_end(&mut b)
             .context("reading standard input")?;
-        Ok(s)
+        Ok(b)
     } else {
-        std::fs::read_to_string(file).with_context(|| format!("reading {file}"))
+        std::fs::read(file).with_context(|| format!("reading {file}"))
     }
 }
 
@@ -216,8 +221,8 @@ fn verdict_code(r: &Report) -> u8 {
 }
 
 fn assess_cmd(file: &str, format: Format, study: bool, units: Option<Units>) -> Result<u8> {
-    let text = read_input(file)?;
-    let scenario = match Scenario::from_json(&text) {
+    let bytes = read_input(file)?;
+    let scenario = match Scenario::from_bytes(&bytes) {
         Ok(s) => s,
         Err(e) => {
             eprintln!("joulewise: {file}: {e}");
@@ -270,7 +275,8 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
         "machine {} · {} · assessor {} · {} · rev {}",
         id.machine_tag, id.location, id.assessor, id.date, id.revision
     )?;
-    writeln!(out, "{} · scenario {}", r.program, &r.scenario_hash[..16])?;
+    let short = r.scenario_hash.get(..16).unwrap_or(&r.scenario_hash);
+    writeln!(out, "{} · scenario {}", r.program, short)?;
     writeln!(
         out,
         "\nVerdict: {} ({} within, {} exceeding, {} not checkable)",

@@ -198,7 +198,8 @@ pub fn demo_register(rows: u64, seed: u64, out: &mut dyn Write) -> Result<()> {
                 cells.insert("inertia_shape", "plate".into());
                 cells.insert("size", format!("{:.0} mm", uniform(300.0, 900.0)));
                 cells.insert("hinge_tilt", "0 deg".into());
-                cells.insert("hazard_radius", cells["size"].clone());
+                let size = cells.get("size").cloned().unwrap_or_default();
+                cells.insert("hazard_radius", size);
                 cells.insert("travel", format!("{:.0} deg", uniform(60.0, 100.0)));
                 cells.insert("spring", "torsion".into());
                 cells.insert("spring_rate", format!("{:.2} N·m/rad", uniform(0.5, 4.0)));
@@ -617,9 +618,9 @@ fn scenario_from_row(cell: &Row<'_>, base: &Path) -> Result<Scenario> {
     let file = cell.get("scenario_file");
     if !file.is_empty() {
         let path: PathBuf = base.join(file);
-        let text = std::fs::read_to_string(&path)
-            .with_context(|| format!("scenario_file {}", path.display()))?;
-        return Scenario::from_json(&text)
+        let bytes =
+            std::fs::read(&path).with_context(|| format!("scenario_file {}", path.display()))?;
+        return Scenario::from_bytes(&bytes)
             .map_err(|e| anyhow::anyhow!("scenario_file {}: {e}", path.display()));
     }
     let rotating = match cell.get("part") {

@@ -656,3 +656,35 @@ fn peak_deceleration_of_a_damped_part_is_found_between_steps() {
         decel(t_peak)
     );
 }
+
+/// Found by the property tests in `tests/properties.rs`: a friction force
+/// of 1.8e308 N against 4 294 967 295 buffers overflowed the integration
+/// and the energy per cycle came out NaN. An impact whose figures are not
+/// finite is now refused with a typed error.
+#[test]
+fn an_impact_that_overflows_is_refused_not_nan() {
+    let b = Buffer::new(BufferConfig {
+        law: BufferLaw::ConstantForce {
+            force: 51_503.0,
+            stroke: 0.5,
+        },
+        count: u32::MAX,
+        rebound: Rebound::Elastic,
+    })
+    .unwrap();
+    let input = ImpactInput {
+        friction_force: f64::MAX,
+        incline: 1.0,
+        cycles_per_hour: 1.0,
+        ..hit(335.0, 1.0, 1.0)
+    };
+    let cfg = ImpactConfig {
+        solver: crate::ode::SolverConfig::default(),
+        samples: 20,
+    };
+    match impact(&input, &b, &cfg) {
+        Ok(o) => assert!(o.energy_per_cycle.is_finite() && o.peak_force.is_finite()),
+        Err(ReleaseError::Input(e)) => assert_eq!(e.field, "buffer"),
+        Err(other) => panic!("unexpected {other:?}"),
+    }
+}
