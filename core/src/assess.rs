@@ -236,11 +236,11 @@ pub fn scenario_hash(s: &Scenario) -> String {
         json.clear();
     }
     let digest = Sha256::digest(&json);
-    const HEX: &[u8; 16] = b"0123456789abcdef";
     let mut out = String::with_capacity(2 * digest.len());
     for b in digest.iter() {
-        out.push(char::from(HEX[usize::from(b >> 4)]));
-        out.push(char::from(HEX[usize::from(b & 0x0f)]));
+        for nibble in [b >> 4, b & 0x0f] {
+            out.extend(char::from_digit(u32::from(nibble), 16));
+        }
     }
     out
 }
