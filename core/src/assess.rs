@@ -170,7 +170,8 @@ fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
     add_check_figures(&mut figures, &checks);
     let cautions = cautions_for(&figures, &checks);
     let counts = count(&checks);
-    let verdict = limits::worst_verdict(&checks).unwrap_or(Verdict::Pass);
+    // With no check at all nothing is "within limit": say not applicable.
+    let verdict = limits::worst_verdict(&checks).unwrap_or(Verdict::NotApplicable);
     let mut notes = out.notes.clone();
     if let Some(Ok(st)) = &out.states {
         notes.extend(st.notes.iter().cloned());
