@@ -1004,6 +1004,40 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
         ));
         fig.assumptions.extend(est.notes.iter().cloned());
         f.push(fig);
+        for (freq, of) in est.frequency.iter().map(|q| (q, est)).chain(
+            model
+                .identification_check
+                .iter()
+                .filter_map(|c| c.frequency.as_ref().map(|q| (q, c))),
+        ) {
+            let (method, label) = match of.method {
+                crate::identify::Method::StaticSag => (
+                    "f = (1/2π)·√(g/δ) ≈ 15.76/√(δ in mm) Hz (SDOF theory)",
+                    "Natural frequency of the test mass, from the sag",
+                ),
+                _ => (
+                    "f = N/t (oscillations timed)",
+                    "Natural frequency of the test mass, as timed",
+                ),
+            };
+            let mut fig = Figure::new(
+                crate::identify::ids::IDENTIFY_NATURAL_FREQUENCY,
+                label,
+                Dim::Frequency,
+                freq.value,
+            )
+            .method(method)
+            .source("GUM first-order propagation (JCGM 100:2008, 5.1.2)")
+            .assume(&format!(
+                "standard uncertainty {}",
+                crate::units::tag(freq.standard_uncertainty, Dim::Frequency)
+            ))
+            .assume("the static and the timed frequencies of the same mass should agree: a quick check of either method");
+            if !std::ptr::eq(of, est) {
+                fig.id = format!("{}_check", crate::identify::ids::IDENTIFY_NATURAL_FREQUENCY);
+            }
+            f.push(fig);
+        }
         if let Some(check) = &model.identification_check {
             let mut fig = Figure::new(
                 crate::identify::ids::IDENTIFY_RATE_CHECK,
