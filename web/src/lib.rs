@@ -6,7 +6,8 @@
 //! is a memo of the scenario settled 150 ms after the last change; the
 //! tolerance study runs in slices ([`study`]). Views: the assessment
 //! ([`inputs`] and [`results`]), buffer sizing ([`sizing_view`]) and the
-//! tolerance study ([`study_view`]).
+//! tolerance study ([`study_view`]) and how the figures are checked
+//! ([`checked_view`]).
 //!
 //! Building blocks, one per file: [`field`] (quantity input with unit
 //! chooser and tolerance), [`controls`] (the sheet's bound controls),
@@ -21,6 +22,7 @@ pub mod bind;
 pub mod blank;
 pub mod cautions_panel;
 pub mod check_row;
+pub mod checked_view;
 pub mod controls;
 pub mod field;
 pub mod figure_card;
@@ -80,6 +82,9 @@ pub fn App() -> impl IntoView {
             <div id="view-assessment" hidden=shown(View::Assessment)>{assessment_view()}</div>
             <div id="view-sizing" hidden=shown(View::Sizing)>{sizing_view::sizing_view()}</div>
             <div id="view-study" hidden=shown(View::Study)>{study_view::study_view()}</div>
+            <div id="view-checked" hidden=shown(View::Checked)>
+                {checked_view::checked_view(Signal::derive(move || sheet.view.get() == View::Checked))}
+            </div>
         </main>
         <footer class="foot">
             <p>
@@ -166,6 +171,7 @@ fn view_nav() -> AnyView {
             {button(View::Assessment, "show-assessment", "Assessment")}
             {button(View::Sizing, "show-sizing", "Buffer sizing")}
             {button(View::Study, "show-study", "Tolerance study")}
+            {button(View::Checked, "show-checked", "How figures are checked")}
         </nav>
     }
     .into_any()

@@ -32,6 +32,8 @@ pub enum View {
     Sizing,
     /// Tolerance study.
     Study,
+    /// How the figures are checked (models, sources, checks, tolerances).
+    Checked,
 }
 
 /// Everything the sheet shares, provided as context (all handles are Copy).

@@ -296,8 +296,14 @@ fn a_cross_check_by_a_second_method_is_compared_not_used() {
     let f = (1000.0f64 / 2.0).sqrt() / (2.0 * std::f64::consts::PI);
     // The inputs are typed to 6 significant figures.
     const REL_SIX_FIGURES: f64 = 1e-5;
-    assert!((f_static - f).abs() < REL_SIX_FIGURES * f, "{f_static} vs {f}");
-    assert!((f_timed - f).abs() < REL_SIX_FIGURES * f, "{f_timed} vs {f}");
+    assert!(
+        (f_static - f).abs() < REL_SIX_FIGURES * f,
+        "{f_static} vs {f}"
+    );
+    assert!(
+        (f_timed - f).abs() < REL_SIX_FIGURES * f,
+        "{f_timed} vs {f}"
+    );
     // A slow count (6.5 s: k ≈ 747 N/m) disagrees, and the causes say why.
     let r = with("6.5 s");
     let c = r.identification_comparison.as_ref().unwrap();
