@@ -76,6 +76,8 @@ pub fn assess_or_explain(s: &Scenario) -> Report {
         states: None,
         sizing: Vec::new(),
         identification: None,
+        identification_check: None,
+        identification_comparison: None,
         study: None,
     })
 }
