@@ -236,11 +236,12 @@ pub fn scenario_hash(s: &Scenario) -> String {
         json.clear();
     }
     let digest = Sha256::digest(&json);
-    const HEX: &[u8; 16] = b"0123456789abcdef";
     let mut out = String::with_capacity(2 * digest.len());
     for b in digest.iter() {
-        out.push(char::from(HEX[usize::from(b >> 4)]));
-        out.push(char::from(HEX[usize::from(b & 0x0f)]));
+        for nibble in [b >> 4, b & 0x0f] {
+            // Lower-case hex digit; a nibble is always below 16.
+            out.push(char::from_digit(u32::from(nibble), 16).unwrap_or('0'));
+        }
     }
     out
 }

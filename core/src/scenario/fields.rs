@@ -609,7 +609,8 @@ fn normalise(path: &str) -> String {
     // `spring.model.members.0.members.1.rate` → `spring.model.rate`.
     let mut i = 0;
     while i + 1 < segs.len() {
-        if segs[i] == "members" && segs[i + 1].parse::<usize>().is_ok() {
+        let index_follows = segs.get(i + 1).is_some_and(|s| s.parse::<usize>().is_ok());
+        if segs.get(i) == Some(&"members") && index_follows {
             segs.drain(i..i + 2);
         } else {
             i += 1;
