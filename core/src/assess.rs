@@ -1493,7 +1493,17 @@ pub struct Study {
     limits: Vec<StudyLimit>,
     worst: Option<crate::tolerance::WorstCase>,
     worst_done: bool,
+    /// Model evaluations of the worst-case search made so far, in the order
+    /// the search asked for them (see [`Study::advance`]).
+    corner_evals: Vec<CornerEval>,
     mc: Option<MonteCarloRun>,
+}
+
+/// One evaluation of the worst-case search: the input point and what the
+/// model gave there.
+struct CornerEval {
+    x: Vec<f64>,
+    y: Result<Vec<f64>, InputError>,
 }
 
 impl Study {
@@ -1618,13 +1628,26 @@ impl Study {
             limits,
             worst: None,
             worst_done: false,
+            corner_evals: Vec::new(),
             mc,
         })
     }
 
     /// Fraction done, 0..=1.
     pub fn progress(&self) -> f64 {
-        let wc = if self.worst_done { 1.0 } else { 0.0 };
+        let wc = if self.worst_done {
+            1.0
+        } else {
+            // Share of the evaluations the search will make: all of them
+            // up to 12 inputs, at most the evaluation budget above.
+            let n = self.inputs.len();
+            let expected = if n <= tolerance::worst_case::EXHAUSTIVE_MAX_INPUTS {
+                1 + 2 * n + (1usize << n)
+            } else {
+                WorstCaseOptions::default().max_evaluations
+            };
+            (self.corner_evals.len() as f64 / expected as f64).min(1.0)
+        };
         match &self.mc {
             None => wc,
             Some(run) => {
@@ -1639,9 +1662,21 @@ impl Study {
         }
     }
 
-    /// Do up to `samples` Monte Carlo samples (the worst-case corners first,
-    /// in one slice). Returns true when the study is complete.
-    pub fn advance(&mut self, samples: usize) -> bool {
+    /// Do up to `work` model evaluations: the worst-case search first, then
+    /// the Monte Carlo samples (one evaluation each). Returns true when the
+    /// study is complete.
+    ///
+    /// Each call is bounded by `work`, so a browser can keep every slice
+    /// short, the worst-case corners included (up to 1 + 2n + 2ⁿ = 4121
+    /// evaluations for 12 inputs, or the search's 20 000). The search itself
+    /// runs from the start on every call until it completes: evaluations
+    /// made by earlier calls are replayed from their stored results (the
+    /// search asks for the same points in the same order, because it is
+    /// deterministic and sees the same values), and at most `work` new ones
+    /// are made. When the budget is spent the rest of that run is discarded
+    /// and the next call resumes it. The result is therefore bit for bit the
+    /// result of one uninterrupted search.
+    pub fn advance(&mut self, work: usize) -> bool {
         let mut eval = Evaluator {
             scenario: &self.scenario,
             base: self.base.clone(),
@@ -1649,20 +1684,67 @@ impl Study {
             ids: &self.figure_ids,
         };
         if !self.worst_done {
-            self.worst = tolerance::worst_case(
+            let stored = &mut self.corner_evals;
+            let mut call = 0usize;
+            let mut fresh = 0usize;
+            let mut paused = false;
+            let result = tolerance::worst_case(
                 &self.inputs,
                 self.figure_ids.len(),
-                &mut |x: &[f64], y: &mut [f64]| eval.run(x, y),
+                &mut |x: &[f64], y: &mut [f64]| {
+                    let k = call;
+                    call += 1;
+                    if paused {
+                        return Err(InputError::invalid("study", "paused"));
+                    }
+                    if let Some(done) = stored.get(k) {
+                        let same = done.x.len() == x.len()
+                            && done
+                                .x
+                                .iter()
+                                .zip(x)
+                                .all(|(a, b)| a.to_bits() == b.to_bits());
+                        if same {
+                            return match &done.y {
+                                Ok(v) => {
+                                    for (dst, src) in y.iter_mut().zip(v) {
+                                        *dst = *src;
+                                    }
+                                    Ok(())
+                                }
+                                Err(e) => Err(e.clone()),
+                            };
+                        }
+                        // Never expected (the search is deterministic):
+                        // evaluate afresh from here on.
+                        stored.truncate(k);
+                    }
+                    if fresh >= work {
+                        paused = true;
+                        return Err(InputError::invalid("study", "paused"));
+                    }
+                    fresh += 1;
+                    let r = eval.run(x, y);
+                    stored.push(CornerEval {
+                        x: x.to_vec(),
+                        y: r.clone().map(|()| y.to_vec()),
+                    });
+                    r
+                },
                 WorstCaseOptions::default(),
-            )
-            .ok();
+            );
+            if paused {
+                return false;
+            }
+            self.worst = result.ok();
             self.worst_done = true;
+            self.corner_evals = Vec::new();
             return self.mc.is_none();
         }
         match &mut self.mc {
             None => true,
             Some(run) => run
-                .advance(&mut |x: &[f64], y: &mut [f64]| eval.run(x, y), samples)
+                .advance(&mut |x: &[f64], y: &mut [f64]| eval.run(x, y), work)
                 .is_complete(),
         }
     }
@@ -1782,6 +1864,94 @@ mod tests {
                 .collect();
             assert_eq!(scenario_hash(&s), want, "{}", d.key);
         }
+    }
+
+    /// Every `Value` in the scenario gets the tolerance `tol` (fields that
+    /// already have one keep it).
+    fn tolerance_everywhere(s: &Scenario, tol: &str) -> Scenario {
+        fn walk(v: &mut serde_json::Value, tol: &str) {
+            match v {
+                serde_json::Value::Object(m) => {
+                    if m.contains_key("text") && !m.contains_key("tol") {
+                        m.insert("tol".into(), tol.into());
+                    }
+                    for x in m.values_mut() {
+                        walk(x, tol);
+                    }
+                }
+                serde_json::Value::Array(a) => a.iter_mut().for_each(|x| walk(x, tol)),
+                _ => {}
+            }
+        }
+        let mut j = serde_json::to_value(s).unwrap();
+        walk(&mut j, tol);
+        serde_json::from_value(j).unwrap()
+    }
+
+    /// The study advanced a few evaluations at a time (the browser's slices)
+    /// gives exactly what one uninterrupted run gives, worst-case search
+    /// included: exhaustive corners (≤ 12 inputs) and the sensitivity search
+    /// (more inputs), whose evaluations are replayed across the slices.
+    #[test]
+    fn study_in_small_slices_equals_one_run() {
+        let run = |s: &Scenario, work: usize| -> (String, usize) {
+            let nominal = assess(s).unwrap();
+            let mut st = Study::new(s, &nominal).unwrap();
+            let mut calls = 0;
+            let mut last = 0.0;
+            while !st.advance(work) {
+                calls += 1;
+                let p = st.progress();
+                assert!(
+                    (0.0..=1.0).contains(&p) && p >= last,
+                    "progress {p} after {last}"
+                );
+                last = p;
+                assert!(calls < 1_000_000, "the study does not end");
+            }
+            (format!("{:?}", st.finish()), calls)
+        };
+        let (mut exhaustive, mut searched) = (0, 0);
+        for d in demos::all() {
+            for many in [false, true] {
+                let mut s = (d.build)();
+                if many {
+                    s = tolerance_everywhere(&s, "±1 %");
+                }
+                s.study.monte_carlo = true;
+                s.study.samples = 40;
+                let nominal = assess(&s).unwrap();
+                let Some(st) = Study::new(&s, &nominal) else {
+                    continue;
+                };
+                let n = st.inputs.len();
+                if many && (9..=tolerance::worst_case::EXHAUSTIVE_MAX_INPUTS).contains(&n) {
+                    // Thousands of corners: covered more cheaply above.
+                    continue;
+                }
+                let (whole, _) = run(&s, usize::MAX);
+                // About a dozen slices for the worst case (each slice
+                // replays the ones before it), odd sizes so slices end
+                // anywhere in the sequence.
+                let work = if n <= tolerance::worst_case::EXHAUSTIVE_MAX_INPUTS {
+                    (1 + 2 * n + (1 << n)) / 11 + 1
+                } else {
+                    97
+                };
+                let (sliced, calls) = run(&s, work);
+                assert!(calls > 1, "{}: the slices were not small", d.key);
+                assert_eq!(sliced, whole, "{} with {n} toleranced inputs", d.key);
+                if n <= tolerance::worst_case::EXHAUSTIVE_MAX_INPUTS {
+                    exhaustive += 1;
+                } else {
+                    searched += 1;
+                }
+            }
+        }
+        assert!(
+            exhaustive > 0 && searched > 0,
+            "{exhaustive} exhaustive, {searched} searched"
+        );
     }
 
     #[test]

@@ -1,12 +1,14 @@
 //! The tolerance study, run on the page's own thread in short slices.
 //!
-//! [`joulewise_core::assess::Study`] does the worst-case corners in its first
-//! slice, then the Monte Carlo samples a slice at a time. Between slices the
-//! runner hands the thread back to the browser (a zero-delay timeout), so
-//! typing, scrolling and painting go on; the slice size adapts so a slice
-//! takes about [`SLICE_TARGET_MS`]. A newer report (the inputs changed)
-//! cancels the run in progress and starts another; the result is shown only
-//! when complete.
+//! [`joulewise_core::assess::Study`] advances by a number of model
+//! evaluations per call (worst-case corners first, then the Monte Carlo
+//! samples). A slice is one task of the page's thread: calls of a few
+//! milliseconds each, sized by the clock, until the next call would take the
+//! slice past [`SLICE_BUDGET_MS`]; then the runner hands the thread back to
+//! the browser (a zero-delay timeout), so typing, scrolling and painting go
+//! on. A newer
+//! report (the inputs changed) cancels the run in progress and starts
+//! another; the result is shown only when complete.
 
 use crate::state::Sheet;
 use joulewise_core::assess::Study;
@@ -16,16 +18,21 @@ use leptos::prelude::*;
 use std::sync::Arc;
 use wasm_bindgen::JsCast;
 
-/// Time one slice should take: well under the 50 ms that counts as a long
-/// task, with room for the browser's own work in the same frame budget.
-pub const SLICE_TARGET_MS: f64 = 20.0;
-/// Samples in the first Monte Carlo slice, before any timing is known:
-/// few enough to stay short on a slow tablet with a costly model.
-const FIRST_SLICE: usize = 20;
-/// Bounds of the adapted slice size.
-const SLICE_MIN: usize = 5;
-/// See [`SLICE_MIN`].
-const SLICE_MAX: usize = 5_000;
+/// Time one slice may take: half the 50 ms that counts as a long task
+/// (Long Tasks API), with room for the browser's own work in the same task
+/// and for a call that takes longer than the one before it.
+pub const SLICE_BUDGET_MS: f64 = 25.0;
+/// Time one call into the study should take: short enough that the slice
+/// ends close to its budget, long enough that the clock reads (and the
+/// replay of the worst-case search, see `Study::advance`) cost little.
+const CALL_TARGET_MS: f64 = 4.0;
+/// Evaluations in the first call, before any timing is known: few enough to
+/// stay short on a slow tablet with a costly model.
+const FIRST_CALL: usize = 4;
+/// Bounds of the adapted call size.
+const CALL_MIN: usize = 1;
+/// See [`CALL_MIN`].
+const CALL_MAX: usize = 5_000;
 
 /// Milliseconds from the page's clock (0 where there is none).
 pub fn now_ms() -> f64 {
@@ -35,6 +42,11 @@ pub fn now_ms() -> f64 {
 }
 
 /// Give the thread back to the browser until a zero-delay timeout fires.
+///
+/// Not `scheduler.yield()`: tried, its continuations run ahead of rendering
+/// in Chromium, so the progress bar was never painted while the study ran
+/// (tests/e2e/specs/040-study.mjs). Chromium holds a nested zero-delay
+/// timeout back 4 ms, which the 25 ms slices keep to a small share.
 pub async fn yield_to_browser() {
     let promise = js_sys::Promise::new(&mut |resolve, _reject| {
         if let Some(w) = web_sys::window() {
@@ -51,28 +63,35 @@ pub async fn run_in_slices(
     mut study: Study,
     mut progress: impl FnMut(f64) -> bool,
 ) -> Option<StudyReport> {
-    let mut n = FIRST_SLICE;
-    // The first call does the worst-case corners, not `n` samples: its time
-    // says nothing about the time per sample.
-    let mut corners = true;
+    let mut n = FIRST_CALL;
     loop {
-        let t0 = now_ms();
-        let done = study.advance(n);
-        let dt = now_ms() - t0;
+        let start = now_ms();
+        let done = loop {
+            let t0 = now_ms();
+            let done = study.advance(n);
+            let t1 = now_ms();
+            let dt = t1 - t0;
+            // Towards the target time per call, at most halving or doubling
+            // at a time (the time per evaluation varies, e.g. with bottoming).
+            let factor = if dt > 0.0 {
+                (CALL_TARGET_MS / dt).clamp(0.5, 2.0)
+            } else {
+                2.0
+            };
+            let next = ((n as f64 * factor) as usize).clamp(CALL_MIN, CALL_MAX);
+            // The next call is expected to take dt scaled like its size.
+            let expected = dt * next as f64 / n as f64;
+            n = next;
+            if done || t1 - start + expected > SLICE_BUDGET_MS {
+                break done;
+            }
+        };
         if !progress(study.progress()) {
             return None;
         }
         if done {
             return Some(study.finish());
         }
-        if !corners {
-            // Towards the target time, at most halving or doubling at a
-            // time (the time per sample varies, e.g. with bottoming).
-            let factor = if dt > 0.0 { SLICE_TARGET_MS / dt } else { 2.0 };
-            let scaled = n as f64 * factor.clamp(0.5, 2.0);
-            n = (scaled as usize).clamp(SLICE_MIN, SLICE_MAX);
-        }
-        corners = false;
         yield_to_browser().await;
     }
 }

@@ -16,7 +16,7 @@
 //!   by the wall clock and by the process's own CPU time, and the peak
 //!   resident memory against a 10 000-row run (flat when streaming);
 //! - `size`: the release build (`dist/`): WASM + JS + CSS after `gzip -9`,
-//!   and the single-file HTML when the build makes one;
+//!   and the raw size of `dist-single/joulewise.html`;
 //! - `browser`: `bench/browser.mjs` (playwright-core, Debian's Chromium) on
 //!   `dist/` served locally: start-up with the CPU throttled 4×, recompute
 //!   per demo and the Monte Carlo in the page, through the page's bench
@@ -604,13 +604,11 @@ fn size_rows(dist: &Path, built: bool) -> Vec<Row> {
         }
     }
     parts.sort();
-    // The single-file build: any HTML in dist/ besides index.html (the
-    // largest, if several).
-    let html = files
-        .iter()
-        .filter(|f| ext(f) == "html" && f.file_name().is_some_and(|n| n != "index.html"))
-        .filter_map(|f| Some((std::fs::metadata(f).ok()?.len(), f)))
-        .max_by_key(|(len, _)| *len);
+    // The single-file build that `cargo xtask dist` writes beside dist/.
+    let single_path = dist.with_file_name("dist-single").join("joulewise.html");
+    let html = std::fs::metadata(&single_path)
+        .ok()
+        .map(|m| (m.len(), &single_path));
     vec![
         transfer
             .value((total > 0.0).then_some(total / 1000.0))
@@ -619,7 +617,7 @@ fn size_rows(dist: &Path, built: bool) -> Vec<Row> {
             Some((len, f)) => single
                 .value(Some(len as f64 / 1000.0))
                 .note(f.file_name().and_then(|n| n.to_str()).unwrap_or("?")),
-            None => single.note("not measured yet: the build makes no single-file HTML in dist/"),
+            None => single.note("not measured yet: no dist-single/joulewise.html"),
         },
     ]
 }

@@ -65,6 +65,9 @@ export const tests = {
       await page.locator('#study-status', { hasText: /^Done in/ }).waitFor({ timeout: 30000 });
       assert((await page.locator('#study-results').textContent()).includes('Monte Carlo part is off'), 'says the Monte Carlo is off');
       assert((await page.locator('#plot-study').textContent()).length > 0, 'histogram frame says why it is empty');
+      // Enough samples that the run outlasts the Stop click (10 000 can end
+      // between Playwright's check that the button is enabled and the click).
+      await typeInto(page.locator('#f-study-samples'), '100000');
       await page.locator('#f-study-monte_carlo').check();
       await settled(page);
       await page.locator('#study-status', { hasText: 'Running' }).waitFor({ timeout: 10000 });
