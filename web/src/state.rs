@@ -32,6 +32,8 @@ pub enum View {
     Sizing,
     /// Tolerance study.
     Study,
+    /// The library of kept assessments.
+    Library,
 }
 
 /// Everything the sheet shares, provided as context (all handles are Copy).
@@ -76,6 +78,8 @@ pub fn assess_or_explain(s: &Scenario) -> Report {
         states: None,
         sizing: Vec::new(),
         identification: None,
+        identification_check: None,
+        identification_comparison: None,
         study: None,
     })
 }
