@@ -244,7 +244,9 @@ impl Keeper {
         });
         // A verdict that settles after the save is written too.
         Effect::new(move |_| {
-            let v = sheet.report.with(|r| verdict_key(r.verdict));
+            let v = sheet
+                .report
+                .with(|r| verdict_key(crate::verdict::shown_verdict(r)));
             if sheet.pending.get_untracked() || !k.ready.get_untracked() {
                 return;
             }
@@ -257,6 +259,15 @@ impl Keeper {
             }
         });
         k.listen_for_hide();
+        // A link pasted into the address bar of an open page changes only
+        // the fragment: no reload, so it is read here.
+        let _ = window_event_listener(leptos::ev::hashchange, move |_| {
+            if k.ready.get_untracked() {
+                spawn_local(async move {
+                    k.open_link(sheet).await;
+                });
+            }
+        });
         k.listen_to_tabs(sheet);
         spawn_local(async move { k.start(sheet).await });
         k
@@ -360,23 +371,32 @@ impl Keeper {
         self.aside.set(aside);
         // What to show: a shared link, the assessment open before a reload,
         // or the newest.
-        let link = crate::share::from_location().await;
-        match link {
+        if !self.open_link(sheet).await {
+            self.open_default(sheet);
+        }
+        self.ready.set(true);
+    }
+
+    /// Show the share link in the page's address, if there is one (as a
+    /// new, unsaved assessment). Returns whether the sheet was replaced.
+    async fn open_link(self, sheet: Sheet) -> bool {
+        match crate::share::from_location().await {
             Some(Ok(s)) => {
                 self.start_new(sheet, s);
+                sheet.view.set(View::Assessment);
                 self.notice.set(Some(Notice::Text(
                     "Opened from a link. It is not in your library until you change it.".into(),
                 )));
+                true
             }
             Some(Err(e)) => {
                 self.notice.set(Some(Notice::Text(format!(
                     "The link could not be opened: {e}"
                 ))));
-                self.open_default(sheet);
+                false
             }
-            None => self.open_default(sheet),
+            None => false,
         }
-        self.ready.set(true);
     }
 
     fn open_default(self, sheet: Sheet) {
@@ -476,7 +496,12 @@ impl Keeper {
         if sheet.pending.get_untracked() {
             previous.to_string()
         } else {
-            verdict_key(sheet.report.with_untracked(|r| r.verdict)).to_string()
+            verdict_key(
+                sheet
+                    .report
+                    .with_untracked(|r| crate::verdict::shown_verdict(r)),
+            )
+            .to_string()
         }
     }
 
@@ -523,27 +548,7 @@ impl Keeper {
             return;
         }
         let id = match id {
-            Some(id) => {
-                // Has another tab written since we read or wrote it?
-                if let Ok(Some(raw)) = store::get(&id).await {
-                    if let Ok(theirs) = decode(&id, &raw) {
-                        let base = with(|l| l.base_rev);
-                        if theirs.revision != base {
-                            if theirs.scenario == s {
-                                with(|l| {
-                                    l.base_rev = theirs.revision;
-                                    l.last_json = json.clone();
-                                });
-                                self.dirty.set(false);
-                                return;
-                            }
-                            self.conflict.set(Some(Conflict { theirs }));
-                            return;
-                        }
-                    }
-                }
-                id
-            }
+            Some(id) => id,
             None => {
                 let id = new_id();
                 with(|l| l.base_rev = 0);
@@ -567,8 +572,36 @@ impl Keeper {
         let text = encode(&r);
         with(|l| l.records.insert(id.clone(), r.clone()));
         self.refresh_entries();
-        match store::put(&id, &text).await {
-            Ok(()) => {
+        let base = with(|l| l.base_rev);
+        // Written only if the stored revision is still the one this tab
+        // read or wrote last (or nothing is stored, or it is unreadable).
+        let expect = move |now: Option<&str>| match now {
+            None => true,
+            Some(raw) => store::revision_of(raw).is_none_or(|r| r == base),
+        };
+        match store::put_if(&id, &text, expect).await {
+            Ok(store::PutIf::Changed(theirs)) => {
+                let theirs = theirs.and_then(|raw| decode(&id, &raw).ok());
+                let previous = previous.filter(|p| p.id == id);
+                with(|l| match previous {
+                    Some(p) => l.records.insert(id.clone(), p),
+                    None => l.records.remove(&id),
+                });
+                if let Some(theirs) = theirs {
+                    with(|l| l.records.insert(id.clone(), theirs.clone()));
+                    if theirs.scenario == r.scenario {
+                        with(|l| {
+                            l.base_rev = theirs.revision;
+                            l.last_json = json;
+                        });
+                        self.dirty.set(false);
+                    } else {
+                        self.conflict.set(Some(Conflict { theirs }));
+                    }
+                }
+                self.refresh_entries();
+            }
+            Ok(store::PutIf::Written) => {
                 if store::kind() == Kind::Idb {
                     store::drop_rescue(&id);
                 }
@@ -715,7 +748,10 @@ impl Keeper {
         if theirs.revision <= with(|l| l.base_rev) {
             return;
         }
-        if self.dirty.get_untracked() {
+        // Compared directly, not through the `dirty` flag, which an effect
+        // sets a moment after each keystroke.
+        let unsaved = with(|l| sheet.scenario.with_untracked(json_of) != l.last_json);
+        if unsaved || self.dirty.get_untracked() {
             self.conflict.set(Some(Conflict { theirs }));
         } else {
             self.show(sheet, &id);

@@ -448,7 +448,8 @@ pub fn library_view() -> AnyView {
                     <button type="button" id="export-all" on:click=move |_| export_all(sheet, k)>"Export all"</button>
                 </div>
             </div>
-            <div id="import-report" class="import-report" role="status" inner_html=move || t.report.get()></div>
+            <div id="import-report" class="import-report" role="status" data-count=move || t.count.get().to_string()
+                inner_html=move || t.report.get()></div>
             <ul id="lib-list" class="lib-list" inner_html=list on:click=click on:keydown=key></ul>
             <section class="aside" hidden=move || k.aside.with(Vec::is_empty) aria-labelledby="aside-title">
                 <h2 id="aside-title">"Set aside: stored records that could not be read"</h2>

@@ -59,6 +59,8 @@ pub struct Transfer {
     pub pending: RwSignal<Vec<Pending>>,
     /// Markup of the last import's results (texts escaped).
     pub report: RwSignal<String>,
+    /// How many imports have finished (tests wait on it).
+    pub count: RwSignal<u32>,
 }
 
 impl Transfer {
@@ -67,6 +69,7 @@ impl Transfer {
         let t = Self {
             pending: RwSignal::new(Vec::new()),
             report: RwSignal::new(String::new()),
+            count: RwSignal::new(0),
         };
         provide_context(t);
         t
@@ -319,6 +322,7 @@ pub fn import_from(input: web_sys::HtmlInputElement) {
             "<p class=\"import-sum\">Import: {added} added, {asked} waiting for your choice, {refused} refused.</p>"
         );
         t.report.set(head + &out);
+        t.count.update(|c| *c += 1);
     });
 }
 
@@ -346,8 +350,10 @@ fn input_problems(out: &mut String, s: &Scenario) {
 }
 
 fn new_record(s: Scenario) -> Record {
-    let verdict =
-        crate::verdict::verdict_key(crate::state::assess_or_explain(&s).verdict).to_string();
+    let verdict = crate::verdict::verdict_key(crate::verdict::shown_verdict(
+        &crate::state::assess_or_explain(&s),
+    ))
+    .to_string();
     Record {
         id: new_id(),
         revision: 1,

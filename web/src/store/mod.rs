@@ -395,3 +395,71 @@ pub fn drop_rescue(key: &str) {
         let _ = s.remove_item(&format!("{LOCAL_PREFIX}{key}"));
     }
 }
+
+/// What a conditional write did.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum PutIf {
+    /// The stored text was as expected and is now `text`.
+    Written,
+    /// Something else was stored (its text, `None` if nothing): not written.
+    Changed(Option<String>),
+}
+
+/// Store `text` under `key` only if `expect` accepts what is stored now,
+/// read and written in one IndexedDB transaction (transactions on one
+/// store run one after the other, so two tabs cannot both pass the check
+/// and the second overwrite the first).
+///
+/// # Errors
+/// The browser's words when the write failed (quota exceeded…).
+pub async fn put_if(
+    key: &str,
+    text: &str,
+    expect: impl Fn(Option<&str>) -> bool + 'static,
+) -> Result<PutIf, String> {
+    let Some(db) = db() else {
+        let now = get(key).await?;
+        if !expect(now.as_deref()) {
+            return Ok(PutIf::Changed(now));
+        }
+        return put(key, text).await.map(|()| PutIf::Written);
+    };
+    use std::rc::Rc;
+    let (tx, st) = object_store(&db, IdbTransactionMode::Readwrite)?;
+    let done = transaction_done(&tx);
+    let req = st.get(&JsValue::from_str(key)).map_err(|e| js_err(&e))?;
+    let outcome: Rc<RefCell<Option<PutIf>>> = Rc::new(RefCell::new(None));
+    let failure: Rc<RefCell<Option<String>>> = Rc::new(RefCell::new(None));
+    let (o, f, r, t) = (outcome.clone(), failure.clone(), req.clone(), tx.clone());
+    let (key_v, text_v) = (JsValue::from_str(key), JsValue::from_str(text));
+    let on = Closure::once_into_js(move |_: web_sys::Event| {
+        let v = r.result().unwrap_or(JsValue::UNDEFINED);
+        let now = (!v.is_undefined() && !v.is_null()).then(|| as_text(&v));
+        if expect(now.as_deref()) {
+            match st.put_with_key(&text_v, &key_v) {
+                Ok(_) => *o.borrow_mut() = Some(PutIf::Written),
+                Err(e) => {
+                    *f.borrow_mut() = Some(js_err(&e));
+                    let _ = t.abort();
+                }
+            }
+        } else {
+            *o.borrow_mut() = Some(PutIf::Changed(now));
+        }
+    });
+    req.set_onsuccess(Some(on.unchecked_ref()));
+    let committed = JsFuture::from(done).await;
+    if let Some(e) = failure.borrow_mut().take() {
+        return Err(e);
+    }
+    committed.map_err(|e| js_err(&e))?;
+    let out = outcome.borrow_mut().take();
+    out.ok_or_else(|| "the browser did not answer".to_string())
+}
+
+/// The revision written in a stored text (0 when it has none or cannot be
+/// read), for [`put_if`] checks.
+pub fn revision_of(raw: &str) -> Option<u64> {
+    let v: serde_json::Value = serde_json::from_str(raw).ok()?;
+    v.get("revision").and_then(serde_json::Value::as_u64)
+}

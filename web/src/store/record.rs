@@ -45,8 +45,8 @@ pub struct Record {
 
 #[derive(Deserialize)]
 struct Envelope {
-    record_format: u32,
-    schema_version: u32,
+    // `record_format` and `schema_version` are read from the raw object
+    // (to pick the upgrade step); the scenario carries its own version.
     id: String,
     #[serde(default)]
     revision: u64,
@@ -103,12 +103,6 @@ pub fn decode(key: &str, raw: &str) -> Result<Record, Unreadable> {
     };
     let env = match format {
         0 => Envelope {
-            record_format: RECORD_FORMAT,
-            schema_version: map
-                .get("schema_version")
-                .and_then(Json::as_u64)
-                .and_then(|v| u32::try_from(v).ok())
-                .unwrap_or(0),
             id: key.to_string(),
             revision: 0,
             saved_ms: 0.0,
