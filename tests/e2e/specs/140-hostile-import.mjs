@@ -43,6 +43,7 @@ export const tests = {
       const after = await stored(page);
       assertEq(JSON.stringify(after), JSON.stringify(before), 'library untouched');
       // Still working: the sheet saves a change and the library lists it.
+      await page.locator('#show-assessment').click();
       await typeInto(page.locator('#f-identity-title'), 'Existing work, still editable');
       await saved(page);
       await page.locator('#show-library').click();
