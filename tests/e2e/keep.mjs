@@ -79,3 +79,11 @@ export async function libraryTitles(page) {
     return h ? h.childNodes[0].textContent.trim() : '';
   }));
 }
+
+/** Screenshot of what is in view (banners sit at the top), for people to look at. */
+export async function snap(page, name) {
+  const { ARTIFACTS } = await import('./lib.mjs');
+  const path = await import('node:path');
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`) });
+}

@@ -179,7 +179,7 @@ struct Local {
 }
 
 thread_local! {
-    static LOCAL: RefCell<Local> = RefCell::new(Local {
+    static LOCAL: RefCell<Local> = const { RefCell::new(Local {
         records: BTreeMap::new(),
         last_json: String::new(),
         base_rev: 0,
@@ -188,7 +188,7 @@ thread_local! {
         again: false,
         tab: String::new(),
         channel: None,
-    });
+    }) };
 }
 
 fn with<T>(f: impl FnOnce(&mut Local) -> T) -> T {
@@ -463,12 +463,17 @@ impl Keeper {
     /// Show `s` as a new assessment, not in the library until it changes
     /// (a demo, a blank sheet, a shared link). The open one is saved first.
     pub fn start_new(self, sheet: Sheet, s: Scenario) {
-        if self.dirty.get_untracked() {
-            // Written synchronously (rescue) and then in the background.
+        let unsaved = with(|l| sheet.scenario.with_untracked(json_of) != l.last_json);
+        if self.ready.get_untracked() && (unsaved || self.dirty.get_untracked()) {
+            // Kept synchronously (rescue copy), then written, then replaced.
             self.rescue_now(sheet);
-            spawn_local(async move { self.save_now().await });
+            spawn_local(async move {
+                self.save_now().await;
+                self.begin_new(sheet, s);
+            });
+        } else {
+            self.begin_new(sheet, s);
         }
-        self.begin_new(sheet, s);
     }
 
     fn begin_new(self, sheet: Sheet, s: Scenario) {
@@ -538,6 +543,11 @@ impl Keeper {
         let s = sheet.scenario.get_untracked();
         let json = json_of(&s);
         let id = self.current.get_untracked();
+        if id.is_none() && with(|l| l.last_json == json) {
+            // A demo, blank sheet or link nobody has changed yet.
+            self.dirty.set(false);
+            return;
+        }
         let previous = id.as_ref().and_then(|i| self.record(i));
         let verdict =
             Self::verdict_now(sheet, previous.as_ref().map_or("", |r| r.verdict.as_str()));
@@ -649,8 +659,18 @@ impl Keeper {
         let conflict = self.conflict.with_untracked(Option::is_some);
         let id = match (self.current.get_untracked(), conflict) {
             (Some(id), false) => id,
-            // A new assessment, or one in conflict: kept as a copy of its own.
-            _ => new_id(),
+            // In conflict: kept as a copy of its own.
+            (_, true) => new_id(),
+            // New: it gets its id now, so the write that follows uses it too.
+            (None, false) => {
+                let id = new_id();
+                with(|l| l.base_rev = 0);
+                self.current.set(Some(id.clone()));
+                if let Some(st) = session() {
+                    let _ = st.set_item(OPEN_KEY, &id);
+                }
+                id
+            }
         };
         let rev = if conflict {
             1

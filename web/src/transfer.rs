@@ -296,7 +296,7 @@ pub fn import_from(input: web_sys::HtmlInputElement) {
                         match existing {
                             Some(id) => {
                                 asked += 1;
-                                out.push_str("” is already in the library: choose below.");
+                                out.push_str("” is already in the library: choose what to do in the question at the top of the page.");
                                 t.pending.update(|p| {
                                     p.push(Pending {
                                         file: name.clone(),

@@ -6,8 +6,8 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { launch, assert, assertEq, assertClean, typeInto, fieldId, shot, axeAudit, BASE_URL } from '../lib.mjs';
-import { ready, openKept, saved, stored, putRaw, download, libraryTitles } from '../keep.mjs';
+import { launch, assert, assertEq, assertClean, typeInto, fieldId, axeAudit, BASE_URL } from '../lib.mjs';
+import { snap, ready, openKept, saved, stored, putRaw, download, libraryTitles } from '../keep.mjs';
 
 /** Budget for autosave: the brief asks for "within a second". */
 const AUTOSAVE_BUDGET_MS = 1000;
@@ -95,7 +95,7 @@ export const tests = {
       await page.locator('#notice', { hasText: 'Removed Proofer door' }).waitFor();
       assert(!(await libraryTitles(page)).includes('Proofer door'), 'deleted from the list');
       await page.waitForFunction(async () => true);
-      await shot(page, 'library-after-delete');
+      await snap(page, 'library-after-delete');
       const { bad, all } = await axeAudit(page);
       if (all.length) console.log(`     axe (library): ${all.map((x) => `${x.id}/${x.impact}×${x.nodes}`).join(', ')}`);
       assert(bad.length === 0, `library: serious/critical: ${JSON.stringify(bad, null, 1)}`);
@@ -140,7 +140,7 @@ export const tests = {
       await page.locator('#aside-banner button[data-act="show-library"]').click();
       assertEq(JSON.stringify(await libraryTitles(page)), JSON.stringify(['Stays whole']), 'library');
       assertEq(await page.locator('#aside-list .aside-item').count(), 2, 'both listed as set aside');
-      await shot(page, 'library-quarantine');
+      await snap(page, 'library-quarantine');
       const raw = await download(page, `#aside-list button[data-act="aside-export"][data-id="${damaged.key}"]`);
       assertEq(raw.text, garbage, 'the raw text is exported as stored');
       const still = await stored(page);
@@ -178,7 +178,7 @@ export const tests = {
       ]);
       const who = asked === a ? 'A' : 'C';
       console.log(`     two tabs: tab ${who} was asked`);
-      await shot(asked, 'two-tabs-conflict');
+      await snap(asked, 'two-tabs-conflict');
       const { bad } = await axeAudit(asked);
       assert(bad.length === 0, `conflict banner: serious/critical: ${JSON.stringify(bad, null, 1)}`);
       await asked.locator('#conflict button[data-act="conflict-both"]').click();

@@ -6,8 +6,8 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { launch, assert, assertEq, assertClean, typeInto, shot, axeAudit } from '../lib.mjs';
-import { ready, openKept, saved, stored, download, importFiles, libraryTitles } from '../keep.mjs';
+import { launch, assert, assertEq, assertClean, typeInto, axeAudit } from '../lib.mjs';
+import { snap, ready, openKept, saved, stored, download, importFiles, libraryTitles } from '../keep.mjs';
 
 const tmp = () => fs.mkdtempSync(path.join(os.tmpdir(), 'jw-files-'));
 
@@ -32,7 +32,7 @@ export const tests = {
       let report = await importFiles(page, fileA);
       assert(/already in the library/.test(report), `asks: ${report}`);
       await page.locator('#import-ask').waitFor();
-      await shot(page, 'import-ask');
+      await snap(page, 'import-ask');
       const { bad } = await axeAudit(page);
       assert(bad.length === 0, `import banner: serious/critical: ${JSON.stringify(bad, null, 1)}`);
       await page.locator('#import-ask button[data-act="import-cancel"]').click();
@@ -126,7 +126,7 @@ export const tests = {
         await p.locator('#notice', { hasText: 'Opened from a link' }).waitFor();
         assert(/Not in your library/.test(await p.locator('#save-state').textContent()), 'unsaved');
         assertEq((await stored(p)).length, 0, 'nothing stored yet');
-        await shot(p, 'share-link-opened');
+        await snap(p, 'share-link-opened');
         await p.locator('#keep-link').click();
         await saved(p);
         assertEq((await stored(p)).length, 1, 'kept on request');

@@ -2,8 +2,8 @@
 // saving (IndexedDB put throws QuotaExceededError), IndexedDB that never
 // opens (blocked: localStorage takes over), no storage at all (private
 // mode or a policy: the page works in memory and urges an export).
-import { launch, assert, assertEq, assertClean, typeInto, shot, axeAudit } from '../lib.mjs';
-import { ready, openKept, saved, stored, download, libraryTitles } from '../keep.mjs';
+import { launch, assert, assertEq, assertClean, typeInto, axeAudit } from '../lib.mjs';
+import { snap, ready, openKept, saved, stored, download, libraryTitles } from '../keep.mjs';
 
 export const tests = {
   async 'quota exceeded mid-save: banner, nothing lost, saved again once there is room'() {
@@ -25,7 +25,7 @@ export const tests = {
       await typeInto(page.locator('#f-identity-title'), 'Typed while the disk was full');
       await page.locator('#storage-banner', { hasText: 'QuotaExceededError' }).waitFor({ timeout: 5000 });
       console.log(`     quota: ${(await page.locator('#storage-banner p').textContent()).trim()}`);
-      await shot(page, 'banner-quota');
+      await snap(page, 'banner-quota');
       const { bad } = await axeAudit(page);
       assert(bad.length === 0, `quota banner: serious/critical: ${JSON.stringify(bad, null, 1)}`);
       const file = await download(page, '#storage-banner button[data-act="export-all"]');
@@ -62,7 +62,7 @@ export const tests = {
       assertEq(await page.locator('#f-identity-title').inputValue(), 'Kept in small storage', 'after reload');
       const keys = await page.evaluate(() => Object.keys(localStorage).filter((k) => k.startsWith('joulewise.record.')));
       assertEq(keys.length, 1, 'one record in localStorage');
-      await shot(page, 'banner-blocked');
+      await snap(page, 'banner-blocked');
       assertClean(b.log, 'blocked');
     } finally {
       await b.close();
@@ -89,7 +89,7 @@ export const tests = {
       assertEq(JSON.stringify(await libraryTitles(page)), JSON.stringify(['Only in this tab']), 'the library works in memory');
       const file = await download(page, '#storage-banner button[data-act="export-all"]');
       assert(file.text.includes('Only in this tab'), 'export holds the work');
-      await shot(page, 'banner-no-storage');
+      await snap(page, 'banner-no-storage');
       const { bad } = await axeAudit(page);
       assert(bad.length === 0, `no-storage banner: serious/critical: ${JSON.stringify(bad, null, 1)}`);
       assertClean(b.log, 'no storage');

@@ -158,10 +158,7 @@ async fn open_idb() -> Result<IdbDatabase, String> {
     let r = req.clone();
     let upgrade = Closure::once_into_js(move |_: web_sys::Event| {
         // Version 0 → 1: the one store. Later versions add steps here.
-        if let Ok(db) = r
-            .result()
-            .and_then(|d| d.dyn_into::<IdbDatabase>().map_err(JsValue::from))
-        {
+        if let Ok(db) = r.result().and_then(|d| d.dyn_into::<IdbDatabase>()) {
             let _ = db.create_object_store(STORE);
         }
     });
