@@ -170,7 +170,8 @@ fn assess_at(s: &Scenario, detail: Detail) -> Result<Report, ScenarioError> {
     add_check_figures(&mut figures, &checks);
     let cautions = cautions_for(&figures, &checks);
     let counts = count(&checks);
-    let verdict = limits::worst_verdict(&checks).unwrap_or(Verdict::Pass);
+    // With no check at all nothing is "within limit": say not applicable.
+    let verdict = limits::worst_verdict(&checks).unwrap_or(Verdict::NotApplicable);
     let mut notes = out.notes.clone();
     if let Some(Ok(st)) = &out.states {
         notes.extend(st.notes.iter().cloned());
@@ -236,11 +237,11 @@ pub fn scenario_hash(s: &Scenario) -> String {
         json.clear();
     }
     let digest = Sha256::digest(&json);
-    const HEX: &[u8; 16] = b"0123456789abcdef";
     let mut out = String::with_capacity(2 * digest.len());
     for b in digest.iter() {
-        out.push(char::from(HEX[usize::from(b >> 4)]));
-        out.push(char::from(HEX[usize::from(b & 0x0f)]));
+        for nibble in [b >> 4, b & 0x0f] {
+            out.extend(char::from_digit(u32::from(nibble), 16));
+        }
     }
     out
 }
@@ -1003,6 +1004,40 @@ fn figures(model: &Model, out: &Outcome, errors: &[InputError]) -> Vec<Figure> {
         ));
         fig.assumptions.extend(est.notes.iter().cloned());
         f.push(fig);
+        for (freq, of) in est.frequency.iter().map(|q| (q, est)).chain(
+            model
+                .identification_check
+                .iter()
+                .filter_map(|c| c.frequency.as_ref().map(|q| (q, c))),
+        ) {
+            let (method, label) = match of.method {
+                crate::identify::Method::StaticSag => (
+                    "f = (1/2π)·√(g/δ) ≈ 15.76/√(δ in mm) Hz (SDOF theory)",
+                    "Natural frequency of the test mass, from the sag",
+                ),
+                _ => (
+                    "f = N/t (oscillations timed)",
+                    "Natural frequency of the test mass, as timed",
+                ),
+            };
+            let mut fig = Figure::new(
+                crate::identify::ids::IDENTIFY_NATURAL_FREQUENCY,
+                label,
+                Dim::Frequency,
+                freq.value,
+            )
+            .method(method)
+            .source("GUM first-order propagation (JCGM 100:2008, 5.1.2)")
+            .assume(&format!(
+                "standard uncertainty {}",
+                crate::units::tag(freq.standard_uncertainty, Dim::Frequency)
+            ))
+            .assume("the static and the timed frequencies of the same mass should agree: a quick check of either method");
+            if !std::ptr::eq(of, est) {
+                fig.id = format!("{}_check", crate::identify::ids::IDENTIFY_NATURAL_FREQUENCY);
+            }
+            f.push(fig);
+        }
         if let Some(check) = &model.identification_check {
             let mut fig = Figure::new(
                 crate::identify::ids::IDENTIFY_RATE_CHECK,

@@ -108,6 +108,19 @@ fn assess_text_and_csv_carry_figures_checks_and_cautions() {
     let t = text(&out.stdout);
     assert!(t.starts_with("kind,id,label,value_si"));
     assert!(t.lines().any(|l| l.starts_with("check,")));
+    // Quantities inside texts (formulas, labels, reasons) are written in the
+    // units asked for, never as the internal tag.
+    for key in ["guard-door", "carriage-stop", "brake-springs", "ejector"] {
+        let scenario = text(&run(&["demo", key]).stdout);
+        for units in ["si", "us"] {
+            let out = run_stdin(
+                &["assess", "-", "--format", "text", "--units", units],
+                &scenario,
+            );
+            let t = text(&out.stdout);
+            assert!(!t.contains('⟦') && !t.contains('⟧'), "{key} {units}:\n{t}");
+        }
+    }
 }
 
 #[test]

@@ -232,6 +232,16 @@ pub fn identify_kind(m: &IdentifyInput) -> &'static str {
     }
 }
 
+/// Key of the cross-check method, `none` when there is none.
+pub fn cross_check_kind(m: &Option<IdentifyInput>) -> &'static str {
+    m.as_ref().map_or("none", identify_kind)
+}
+
+/// A blank cross-check of method `k`, or none.
+pub fn cross_check(k: &str) -> Option<IdentifyInput> {
+    (k != "none").then(|| identify(k))
+}
+
 /// A blank identification of method `k`.
 pub fn identify(k: &str) -> IdentifyInput {
     match k {

@@ -639,18 +639,17 @@ const IDENTIFY: &[(&str, &str)] = &[
     ("two_point", "Two-point gauge: forces read at two lengths"),
 ];
 
-fn measured(prefix: &str) -> Views {
-    let p = prefix.to_string();
-    let method = enum_binding(
-        move |s| match model_mut(s, &p)? {
-            SpringModelInput::Measured(m) => Some(&mut m.method),
-            _ => None,
-        },
-        blank::identify_kind,
-        blank::identify,
-    );
-    let pre = prefix.to_string();
-    let fields: Build = Arc::new(move |k| {
+const CROSS_CHECK: &[(&str, &str)] = &[
+    ("none", "None"),
+    ("static", "Static sag"),
+    ("dynamic", "Oscillation"),
+    ("two_point", "Two-point gauge"),
+];
+
+/// The inputs of one identification method, under `at` (`….method` or
+/// `….cross_check`).
+fn identify_fields(at: String) -> Build {
+    Arc::new(move |k| {
         let list: &[(&str, Dim)] = match k {
             "dynamic" => &[
                 ("mass", Dim::Mass),
@@ -676,9 +675,39 @@ fn measured(prefix: &str) -> Views {
         vec![block(
             "grid-2",
             list.iter()
-                .map(|(f, d)| qty(format!("{pre}.method.{f}"), *d))
+                .map(|(f, d)| qty(format!("{at}.{f}"), *d))
                 .collect(),
         )]
+    })
+}
+
+fn measured(prefix: &str) -> Views {
+    let p = prefix.to_string();
+    let method = enum_binding(
+        move |s| match model_mut(s, &p)? {
+            SpringModelInput::Measured(m) => Some(&mut m.method),
+            _ => None,
+        },
+        blank::identify_kind,
+        blank::identify,
+    );
+    let fields = identify_fields(format!("{prefix}.method"));
+    let q = prefix.to_string();
+    let check = enum_binding(
+        move |s| match model_mut(s, &q)? {
+            SpringModelInput::Measured(m) => Some(&mut m.cross_check),
+            _ => None,
+        },
+        blank::cross_check_kind,
+        blank::cross_check,
+    );
+    let check_fields = identify_fields(format!("{prefix}.cross_check"));
+    let check_fields: Build = Arc::new(move |k| {
+        if k == "none" {
+            Vec::new()
+        } else {
+            check_fields(k)
+        }
     });
     let mut out = vec![
         choice(
@@ -690,6 +719,13 @@ fn measured(prefix: &str) -> Views {
         hint("The mass's tolerance is taken as its uncertainty; the identified rate enters the tolerance study with its own uncertainty."),
         switch(method, fields),
         qty(format!("{prefix}.max_deflection"), Dim::Length),
+        choice(
+            field_dom_id(&format!("{prefix}.cross_check.method")),
+            "Cross-check by a second method",
+            opts(CROSS_CHECK),
+            check,
+        ),
+        switch(check, check_fields),
     ];
     if prefix == "spring.model" {
         out.push(identified_rate());

@@ -245,6 +245,9 @@ fn model<'a>(m: &'a mut SpringModelInput, p: &mut Segs<'_>, c: bool) -> Option<&
             }
         }
         (M::Measured(mi), "method") => return identify(&mut mi.method, p.next()?, c),
+        (M::Measured(mi), "cross_check") => {
+            return identify(mi.cross_check.as_mut()?, p.next()?, c)
+        }
         _ => return None,
     })
 }

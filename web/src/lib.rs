@@ -6,8 +6,8 @@
 //! is a memo of the scenario settled 150 ms after the last change; the
 //! tolerance study runs in slices ([`study`]). Views: the assessment
 //! ([`inputs`] and [`results`]), buffer sizing ([`sizing_view`]) and the
-//! tolerance study ([`study_view`]) and the library of kept assessments
-//! ([`library`]).
+//! tolerance study ([`study_view`]), how the figures are checked
+//! ([`checked_view`]) and the library of kept assessments ([`library`]).
 //!
 //! Keeping the work: [`store`] (IndexedDB, localStorage fallback, the
 //! versioned record format in [`store::record`]), [`keep`] (autosave,
@@ -29,6 +29,7 @@ pub mod bind;
 pub mod blank;
 pub mod cautions_panel;
 pub mod check_row;
+pub mod checked_view;
 pub mod controls;
 pub mod field;
 pub mod figure_card;
@@ -100,6 +101,9 @@ pub fn App() -> impl IntoView {
             <div id="view-assessment" hidden=shown(View::Assessment)>{assessment_view()}</div>
             <div id="view-sizing" hidden=shown(View::Sizing)>{sizing_view::sizing_view()}</div>
             <div id="view-study" hidden=shown(View::Study)>{study_view::study_view()}</div>
+            <div id="view-checked" hidden=shown(View::Checked)>
+                {checked_view::checked_view(Signal::derive(move || sheet.view.get() == View::Checked))}
+            </div>
             <div id="view-library" hidden=shown(View::Library)>{library::library_view()}</div>
             {report_print::report_tail()}
         </main>
@@ -188,6 +192,7 @@ fn view_nav() -> AnyView {
             {button(View::Assessment, "show-assessment", "Assessment")}
             {button(View::Sizing, "show-sizing", "Buffer sizing")}
             {button(View::Study, "show-study", "Tolerance study")}
+            {button(View::Checked, "show-checked", "How figures are checked")}
             {button(View::Library, "show-library", "Library")}
         </nav>
     }

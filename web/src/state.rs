@@ -32,6 +32,8 @@ pub enum View {
     Sizing,
     /// Tolerance study.
     Study,
+    /// How the figures are checked (models, sources, checks, tolerances).
+    Checked,
     /// The library of kept assessments.
     Library,
 }

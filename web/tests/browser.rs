@@ -17,6 +17,7 @@ use joulewise_core::units::{self, Dim, UnitSystem};
 use joulewise_web::bind::Binding;
 use joulewise_web::blank;
 use joulewise_web::check_row::{bar_geometry, check_html, utilisation_text};
+use joulewise_web::checked_view::checked_html;
 use joulewise_web::field::{split_number, unit_index, with_unit, QuantityField};
 use joulewise_web::figure_card::{caution_links_html, push_missing_html, reason_path};
 use joulewise_web::figure_card::{figure_how_html, figure_value_html};
@@ -558,6 +559,21 @@ async fn app_loads_a_demo_and_the_energy_follows_the_typed_rate() {
     // ½ · 10 000 N/m · (0.03 m)² = 4.5 J (Hooke's law, common practice).
     assert_eq!(value(), "4.5 J");
     assert_eq!(rate.value(), "10 N/mm", "typed text kept");
+}
+
+// ── How the figures are checked ─────────────────────────────────────────────
+
+#[wasm_bindgen_test]
+fn the_checked_page_lists_every_model_limit_set_and_check() {
+    let page = checked_html();
+    let cat = joulewise_core::verification::catalogue();
+    for s in cat.subjects {
+        assert!(page.contains(&esc(s.name)), "{}", s.id);
+    }
+    for c in cat.checks {
+        assert!(page.contains(&esc(c.title)), "{}", c.id);
+    }
+    assert!(page.contains(&format!(r#"id="checked-total">{}<"#, cat.checks.len())));
 }
 
 // ───────────────────────────────────────────── keeping the work (issue 7) ──

@@ -152,6 +152,7 @@ pub fn dynamic_rate(input: &DynamicInput) -> Result<RateEstimate, InputError> {
         method: Method::Oscillation,
         rate,
         spring_mass_included: Some(input.spring_mass.is_some()),
+        frequency: oscillation_frequency(input).ok(),
         formula: "k = 4π²·(m + m_s/3)/T², T = t/N (SDOF with Rayleigh's spring-mass share)".into(),
         notes,
     })

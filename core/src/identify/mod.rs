@@ -235,6 +235,12 @@ pub struct RateEstimate {
     pub formula: String,
     /// Caveats (worrying but valid).
     pub notes: Vec<String>,
+    /// Natural frequency of the test mass on the spring (Hz), where the
+    /// method gives one: from the sag f = (1/2π)·√(g/δ) (static), or as
+    /// timed f = N/t (oscillation). Set beside another method's rate it is a
+    /// quick cross-check.
+    #[serde(default)]
+    pub frequency: Option<Estimate>,
 }
 
 impl RateEstimate {

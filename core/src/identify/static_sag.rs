@@ -115,6 +115,7 @@ pub fn static_rate(input: &StaticInput) -> Result<RateEstimate, InputError> {
         spring_mass_included: None,
         formula: "k = m·g/δ (Hooke's law)".into(),
         notes,
+        frequency: frequency_from_sag(d, a, input.gravity).ok(),
     })
 }
 

@@ -205,6 +205,7 @@ pub fn two_point(input: &TwoPointInput) -> Result<TwoPointResult, InputError> {
             spring_mass_included: None,
             formula: "k = |F₂ − F₁|/|L₂ − L₁| (Hooke's law)".into(),
             notes,
+            frequency: None,
         },
         zero_force_length,
         force_at_length,

@@ -608,8 +608,8 @@ fn normalise(path: &str) -> String {
     let mut segs: Vec<&str> = path.split('.').collect();
     // `spring.model.members.0.members.1.rate` → `spring.model.rate`.
     let mut i = 0;
-    while i + 1 < segs.len() {
-        if segs[i] == "members" && segs[i + 1].parse::<usize>().is_ok() {
+    while let (Some(&a), Some(b)) = (segs.get(i), segs.get(i + 1)) {
+        if a == "members" && b.parse::<usize>().is_ok() {
             segs.drain(i..i + 2);
         } else {
             i += 1;

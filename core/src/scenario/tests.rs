@@ -281,6 +281,29 @@ fn a_cross_check_by_a_second_method_is_compared_not_used() {
     assert!((k2 - 1000.0).abs() < 0.5, "{k2}");
     let c = r.identification_comparison.as_ref().unwrap();
     assert!(!c.disagree && c.likely_causes.is_empty(), "{c:?}");
+    // Natural frequency of the 2 kg on 1000 N/m: (1/2π)·√(g/δ) from the sag
+    // and N/t as timed, both (1/2π)·√(k/m) = 3.55881 Hz (SDOF theory,
+    // reference-values.md §10; derived closed form).
+    let f_static = r
+        .value(crate::identify::ids::IDENTIFY_NATURAL_FREQUENCY)
+        .unwrap();
+    let f_timed = r
+        .value(&format!(
+            "{}_check",
+            crate::identify::ids::IDENTIFY_NATURAL_FREQUENCY
+        ))
+        .unwrap();
+    let f = (1000.0f64 / 2.0).sqrt() / (2.0 * std::f64::consts::PI);
+    // The inputs are typed to 6 significant figures.
+    const REL_SIX_FIGURES: f64 = 1e-5;
+    assert!(
+        (f_static - f).abs() < REL_SIX_FIGURES * f,
+        "{f_static} vs {f}"
+    );
+    assert!(
+        (f_timed - f).abs() < REL_SIX_FIGURES * f,
+        "{f_timed} vs {f}"
+    );
     // A slow count (6.5 s: k ≈ 747 N/m) disagrees, and the causes say why.
     let r = with("6.5 s");
     let c = r.identification_comparison.as_ref().unwrap();

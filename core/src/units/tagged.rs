@@ -24,14 +24,13 @@ pub fn render(text: &str, system: UnitSystem) -> Cow<'_, str> {
     }
     let mut out = String::with_capacity(text.len());
     let mut rest = text;
-    while let Some(start) = rest.find(OPEN) {
-        out.push_str(&rest[..start]);
-        let after = &rest[start + OPEN.len_utf8()..];
-        let Some(end) = after.find(CLOSE) else {
-            out.push_str(&rest[start..]);
+    while let Some((before, tagged)) = rest.split_once(OPEN) {
+        out.push_str(before);
+        let Some((inner, after)) = tagged.split_once(CLOSE) else {
+            out.push(OPEN);
+            out.push_str(tagged);
             return Cow::Owned(out);
         };
-        let inner = &after[..end];
         let parsed = inner.split_once('|').and_then(|(v, d)| {
             let v: f64 = v.parse().ok()?;
             Some((v, Dim::from_key(d)?))
@@ -44,7 +43,7 @@ pub fn render(text: &str, system: UnitSystem) -> Cow<'_, str> {
                 out.push(CLOSE);
             }
         }
-        rest = &after[end + CLOSE.len_utf8()..];
+        rest = after;
     }
     out.push_str(rest);
     Cow::Owned(out)

@@ -16,7 +16,7 @@ fn cell(s: &str) -> String {
 }
 
 /// A tolerance for people: `1e-8`, `5e-4`, `exact`.
-fn tol(x: f64) -> String {
+pub fn tol(x: f64) -> String {
     if x == 0.0 {
         "exact".into()
     } else {

@@ -33,7 +33,7 @@ mod checks;
 mod markdown;
 mod subjects;
 
-pub use markdown::markdown;
+pub use markdown::{markdown, tol as tolerance_text};
 
 use crate::figure::SourceStatus;
 use serde::Serialize;

@@ -81,6 +81,18 @@ export const tests = {
       const ident = await page.locator('#identified-rate').textContent();
       assert(ident.includes('5 N/mm') && ident.includes('±'), `identified rate with uncertainty: ${ident}`);
       await waitFigure(page, 'fig-identify-rate', '5 N/mm');
+      // A cross-check by oscillation: 5 kg on 5000 N/m, T = 2π·√(m/k) =
+      // 0.198692 s (simple harmonic motion, common practice), 20 periods in
+      // 3.97384 s: the same rate, and the two agree (E ≤ 2, JCGM 100:2008 6.3.3).
+      await pick(page, '#f-spring-model-cross_check-method', 'Oscillation');
+      await fill(page, [
+        ['spring.model.cross_check.mass', '5 kg'], ['spring.model.cross_check.oscillations', '20'],
+        ['spring.model.cross_check.time', '3.97384 s'], ['spring.model.cross_check.timing_uncertainty', '0.05 s'],
+      ]);
+      await waitFigure(page, 'fig-identify-rate_check', '5 N/mm');
+      const e = await figureText(page, 'fig-identify-disagreement');
+      assert(Number.parseFloat(e) < 0.01, `the two rates agree: E = ${e}`);
+      assertEq(await page.locator('#problems').isHidden(), true, 'cross-check inputs complete');
       assertClean(b.log, 'identification');
     } finally {
       await b.close();

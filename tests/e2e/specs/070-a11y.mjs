@@ -8,7 +8,7 @@ const layouts = [
   { width: 1440, height: 900, colorScheme: 'light' },
   { width: 800, height: 1280, colorScheme: 'dark' },
 ];
-const views = ['assessment', 'sizing', 'study'];
+const views = ['assessment', 'sizing', 'study', 'checked'];
 
 export const tests = Object.fromEntries(layouts.map((c) => [
   `axe finds no serious violation in any view at ${c.width}x${c.height} ${c.colorScheme}`,
@@ -24,6 +24,7 @@ export const tests = Object.fromEntries(layouts.map((c) => [
       for (const v of views) {
         await page.locator(`#show-${v}`).click();
         if (v === 'study') await page.locator('#study-status', { hasText: /^Done in/ }).waitFor({ timeout: 60000 });
+        if (v === 'checked') await page.locator('.checked-subject summary').first().click();
         const { bad, all } = await axeAudit(page);
         if (all.length) console.log(`     axe (${v} ${c.width} ${c.colorScheme}): ${all.map((x) => `${x.id}/${x.impact}×${x.nodes}`).join(', ')}`);
         assert(bad.length === 0, `${v}: serious/critical: ${JSON.stringify(bad, null, 1)}`);

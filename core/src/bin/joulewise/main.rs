@@ -285,6 +285,12 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
         r.counts.fail,
         r.counts.unknown
     )?;
+    if joulewise_core::limits::worst_verdict(&r.checks).is_none() {
+        writeln!(
+            out,
+            "  No limit was checked: choose the limit sets that apply to this mechanism."
+        )?;
+    }
     if !r.errors.is_empty() {
         writeln!(out, "\nInput problems")?;
         for e in &r.errors {
@@ -297,14 +303,14 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
             Some(v) => writeln!(
                 out,
                 "  {:<40} {:>14}   {}",
-                f.label,
+                render(&f.label, system),
                 format_quantity(v, f.dim, system).to_string(),
-                f.method
+                render(&f.method, system)
             )?,
             None => writeln!(
                 out,
                 "  {:<40} {:>14}   {}",
-                f.label,
+                render(&f.label, system),
                 "—",
                 render(&f.missing.join("; "), system)
             )?,
@@ -325,7 +331,7 @@ fn write_text(out: &mut impl Write, r: &Report, system: UnitSystem) -> Result<()
                 out,
                 "  [{}] {}: {} {} {}   ({})",
                 c.verdict.word(),
-                c.label,
+                render(&c.label, system),
                 v,
                 c.comparison.symbol(),
                 l,
