@@ -6,8 +6,15 @@
 //! is a memo of the scenario settled 150 ms after the last change; the
 //! tolerance study runs in slices ([`study`]). Views: the assessment
 //! ([`inputs`] and [`results`]), buffer sizing ([`sizing_view`]) and the
-//! tolerance study ([`study_view`]) and how the figures are checked
-//! ([`checked_view`]).
+//! tolerance study ([`study_view`]), how the figures are checked
+//! ([`checked_view`]) and the library of kept assessments ([`library`]).
+//!
+//! Keeping the work: [`store`] (IndexedDB, localStorage fallback, the
+//! versioned record format in [`store::record`]), [`keep`] (autosave,
+//! library operations, quarantine, two tabs), [`transfer`] (export and
+//! import files), [`share`] (links carrying the scenario in the fragment)
+//! and [`report_print`] (the printed report's title block, inputs with SI
+//! values and signature block).
 //!
 //! Building blocks, one per file: [`field`] (quantity input with unit
 //! chooser and tolerance), [`controls`] (the sheet's bound controls),
@@ -28,15 +35,21 @@ pub mod field;
 pub mod figure_card;
 pub mod html;
 pub mod inputs;
+pub mod keep;
 pub mod labels;
 pub mod lens;
+pub mod library;
 pub mod plot;
+pub mod report_print;
 pub mod results;
+pub mod share;
 pub mod sizing_view;
 pub mod state;
+pub mod store;
 pub mod study;
 pub mod study_view;
 pub mod system;
+pub mod transfer;
 pub mod verdict;
 
 use bind::Binding;
@@ -62,6 +75,8 @@ pub fn App() -> impl IntoView {
         move || units.get(),
         move |u| sheet.scenario.update(|s| s.display_units = u),
     ));
+    let keeper = keep::Keeper::provide(sheet);
+    transfer::Transfer::provide();
     bench::install();
     // A printout carries every figure's method, source and assumptions:
     // open the disclosures before the browser lays out the pages.
@@ -76,15 +91,21 @@ pub fn App() -> impl IntoView {
             {demo_picker()}
             <SystemSwitch />
         </header>
+        {library::banners()}
+        {report_print::title_block()}
         {summary_bar()}
+        {library::keep_bar()}
         {view_nav()}
-        <main id="sheet" data-pending=move || sheet.pending.get().to_string()>
+        <main id="sheet" data-pending=move || sheet.pending.get().to_string()
+            data-keep=move || if keeper.ready.get() { "ready" } else { "starting" }>
             <div id="view-assessment" hidden=shown(View::Assessment)>{assessment_view()}</div>
             <div id="view-sizing" hidden=shown(View::Sizing)>{sizing_view::sizing_view()}</div>
             <div id="view-study" hidden=shown(View::Study)>{study_view::study_view()}</div>
             <div id="view-checked" hidden=shown(View::Checked)>
                 {checked_view::checked_view(Signal::derive(move || sheet.view.get() == View::Checked))}
             </div>
+            <div id="view-library" hidden=shown(View::Library)>{library::library_view()}</div>
+            {report_print::report_tail()}
         </main>
         <footer class="foot">
             <p>
@@ -172,6 +193,7 @@ fn view_nav() -> AnyView {
             {button(View::Sizing, "show-sizing", "Buffer sizing")}
             {button(View::Study, "show-study", "Tolerance study")}
             {button(View::Checked, "show-checked", "How figures are checked")}
+            {button(View::Library, "show-library", "Library")}
         </nav>
     }
     .into_any()
@@ -182,7 +204,8 @@ fn view_nav() -> AnyView {
 fn demo_picker() -> AnyView {
     let sheet = Sheet::get();
     let chosen = RwSignal::new(FIRST_DEMO.to_string());
-    let previous: RwSignal<Option<Scenario>> = RwSignal::new(None);
+    let keeper = keep::Keeper::get();
+    let previous: RwSignal<Option<(Option<String>, Scenario)>> = RwSignal::new(None);
     let options = demos::all()
         .into_iter()
         .map(|d| {
@@ -198,14 +221,19 @@ fn demo_picker() -> AnyView {
         let units = current.display_units;
         let mut s = demos::by_key(&key).unwrap_or_else(|| blank::scenario(units));
         s.display_units = units;
-        previous.set(Some(current));
-        sheet.load(s);
+        previous.set(Some((keeper.current.get_untracked(), current)));
+        // A demo or a blank sheet is a new assessment: the one shown is
+        // saved first and stays in the library.
+        keeper.start_new(sheet, s);
     };
     let undo = move |_| {
-        if let Some(mut s) = previous.get_untracked() {
+        if let Some((id, mut s)) = previous.get_untracked() {
             s.display_units = sheet.scenario.with_untracked(|x| x.display_units);
             previous.set(None);
-            sheet.load(s);
+            match id.filter(|i| keeper.record(i).is_some()) {
+                Some(id) => keeper.open(sheet, id),
+                None => keeper.start_new(sheet, s),
+            }
         }
     };
     view! {

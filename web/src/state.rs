@@ -34,6 +34,8 @@ pub enum View {
     Study,
     /// How the figures are checked (models, sources, checks, tolerances).
     Checked,
+    /// The library of kept assessments.
+    Library,
 }
 
 /// Everything the sheet shares, provided as context (all handles are Copy).

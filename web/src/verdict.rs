@@ -17,6 +17,17 @@ pub fn verdict_key(v: Verdict) -> &'static str {
     }
 }
 
+/// The verdict a report is shown with: its worst verdict, or not
+/// applicable when no check applies at all (nothing to be within).
+pub fn shown_verdict(r: &joulewise_core::report::Report) -> Verdict {
+    let c = r.counts;
+    if c.pass + c.fail + c.unknown + c.not_applicable == 0 {
+        Verdict::NotApplicable
+    } else {
+        r.verdict
+    }
+}
+
 /// The icon as SVG markup (decorative: always shown beside the word).
 pub fn verdict_icon_svg(v: Verdict) -> &'static str {
     match v {

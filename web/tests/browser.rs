@@ -575,3 +575,109 @@ fn the_checked_page_lists_every_model_limit_set_and_check() {
     }
     assert!(page.contains(&format!(r#"id="checked-total">{}<"#, cat.checks.len())));
 }
+
+// ───────────────────────────────────────────── keeping the work (issue 7) ──
+
+fn demo_record(id: &str) -> joulewise_web::store::record::Record {
+    joulewise_web::store::record::Record {
+        id: id.into(),
+        revision: 7,
+        saved_ms: 1_700_000_000_000.0,
+        writer: "tab".into(),
+        verdict: "fail".into(),
+        scenario: demos::by_key("guard-door").unwrap(),
+    }
+}
+
+#[wasm_bindgen_test]
+fn a_record_reads_back_as_written_with_refused_texts_as_typed() {
+    use joulewise_web::store::record::{decode, encode};
+    let mut r = demo_record("a1");
+    r.scenario.identity.title = "Lid \"quoted\" <b>".into();
+    if let joulewise_core::scenario::PartInput::Rotating(p) = &mut r.scenario.part {
+        p.travel.text = "86 bananas".into();
+    }
+    let back = decode("a1", &encode(&r)).unwrap();
+    assert_eq!(back, r);
+}
+
+#[wasm_bindgen_test]
+fn a_bare_scenario_of_format_0_is_migrated_and_newer_formats_refused() {
+    use joulewise_web::store::record::{decode, RECORD_FORMAT};
+    let s = demos::by_key("ejector").unwrap();
+    let r = decode("old-key", &s.to_json()).unwrap();
+    assert_eq!((r.id.as_str(), r.revision), ("old-key", 0));
+    // The file carries SI values beside the texts (`to_json`); the demo not.
+    assert_eq!(r.scenario.to_json(), s.to_json());
+    let newer = format!(
+        "{{\"record_format\":{},\"schema_version\":1,\"id\":\"x\",\"scenario\":{{}}}}",
+        RECORD_FORMAT + 1
+    );
+    assert!(decode("x", &newer).unwrap_err().reason.contains("newer"));
+    assert!(decode("x", "{\"record_format\":1").is_err());
+    assert!(decode("x", "[1,2]").is_err());
+}
+
+#[wasm_bindgen_test]
+fn base64url_round_trips_every_length_and_refuses_strangers() {
+    use joulewise_web::share::{b64url_decode, b64url_encode};
+    let data: Vec<u8> = (0..=255u8).collect();
+    for n in 0..data.len() {
+        let e = b64url_encode(&data[..n]);
+        assert!(e
+            .bytes()
+            .all(|c| c.is_ascii_alphanumeric() || c == b'-' || c == b'_'));
+        assert_eq!(b64url_decode(&e).unwrap(), &data[..n]);
+    }
+    // RFC 4648 §10 test vector, in the URL alphabet without padding.
+    assert_eq!(b64url_encode(b"foobar"), "Zm9vYmFy");
+    assert_eq!(b64url_encode(b"fo"), "Zm8");
+    assert!(b64url_decode("ab<c").is_err());
+    assert!(b64url_decode("A").is_err());
+}
+
+#[wasm_bindgen_test]
+fn an_export_of_several_reads_back_and_a_damaged_one_names_its_item() {
+    use joulewise_web::transfer::{bundle_text, file_name, read_file};
+    let list = vec![
+        demos::by_key("guard-door").unwrap(),
+        demos::by_key("ejector").unwrap(),
+    ];
+    let text = bundle_text(&list);
+    let files = |v: &[joulewise_core::scenario::Scenario]| {
+        v.iter().map(|s| s.to_json()).collect::<Vec<_>>()
+    };
+    assert_eq!(files(&read_file(text.as_bytes()).unwrap()), files(&list));
+    let one = list[0].to_json();
+    assert_eq!(
+        files(&read_file(one.as_bytes()).unwrap()),
+        files(&list[..1])
+    );
+    let broken = text.replacen("\"kind\": \"rotating\"", "\"kind\": \"levitating\"", 1);
+    let errs = read_file(broken.as_bytes()).unwrap_err();
+    assert!(errs[0].0.starts_with("assessments.0"), "{errs:?}");
+    assert_eq!(file_name("Hopper lid, line 2 / <x>"), "hopper-lid-line-2-x");
+    assert_eq!(file_name("  "), "assessment");
+}
+
+#[wasm_bindgen_test]
+fn library_search_needs_every_word_and_escapes_titles() {
+    use joulewise_web::keep::Entry;
+    use joulewise_web::library::{list_html, matches};
+    let e = Entry {
+        id: "a\"1".into(),
+        title: "<script>Lid".into(),
+        tag: "HL-2".into(),
+        dated: String::new(),
+        saved_ms: 0.0,
+        revision: 1,
+        verdict: "pass".into(),
+        hay: "<script>lid\nhl-2".into(),
+    };
+    assert!(matches(&e, "LID hl-2"));
+    assert!(!matches(&e, "lid door"));
+    let html = list_html(&[e], "", None, None);
+    assert!(!html.contains("<script>"));
+    assert!(html.contains("&lt;script&gt;Lid"));
+    assert!(html.contains("data-id=\"a&quot;1\""));
+}
