@@ -1079,18 +1079,7 @@ fn stroke<C: Carrier>(
         o.residual_speed(),
         o.heat_load(),
     ];
-    let history = o.history.iter().flat_map(|h| {
-        [
-            h.time,
-            h.position,
-            h.speed,
-            h.hazard_speed,
-            h.spring_force,
-            h.buffer_force,
-            h.kinetic_energy,
-        ]
-    });
-    if numbers.into_iter().chain(history).all(f64::is_finite) {
+    if numbers.into_iter().all(f64::is_finite) && o.history.iter().all(HistoryPoint::is_finite) {
         Ok(o)
     } else {
         Err(ReleaseError::Input(InputError::invalid(

@@ -167,6 +167,23 @@ pub struct HistoryPoint {
     pub kinetic_energy: f64,
 }
 
+impl HistoryPoint {
+    /// Whether every number of the point is finite.
+    pub fn is_finite(&self) -> bool {
+        [
+            self.time,
+            self.position,
+            self.speed,
+            self.hazard_speed,
+            self.spring_force,
+            self.buffer_force,
+            self.kinetic_energy,
+        ]
+        .into_iter()
+        .all(f64::is_finite)
+    }
+}
+
 /// Result of a release.
 #[derive(Debug, Clone, PartialEq)]
 pub struct ReleaseOutcome {
@@ -596,18 +613,7 @@ pub fn release(mech: &Mechanism<'_>, cfg: &ReleaseConfig) -> Result<ReleaseOutco
         w.friction,
         w.damping,
     ];
-    let history = o.history.iter().flat_map(|h| {
-        [
-            h.time,
-            h.position,
-            h.speed,
-            h.hazard_speed,
-            h.spring_force,
-            h.buffer_force,
-            h.kinetic_energy,
-        ]
-    });
-    if numbers.into_iter().chain(history).all(f64::is_finite) {
+    if numbers.into_iter().all(f64::is_finite) && o.history.iter().all(HistoryPoint::is_finite) {
         Ok(o)
     } else {
         Err(ReleaseError::Input(InputError::invalid(
