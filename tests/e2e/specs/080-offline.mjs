@@ -14,6 +14,7 @@ import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { BASE_URL, launch, shot, assert, assertEq, assertClean, typeInto } from '../lib.mjs';
 import { serveFolder } from '../static-server.mjs';
+import { saved } from '../keep.mjs';
 
 const DIST_DIR = path.resolve(process.env.DIST_DIR ?? 'dist');
 const SINGLE_FILE = path.resolve(process.env.SINGLE_FILE ?? path.join(path.dirname(DIST_DIR), 'dist-single', 'joulewise.html'));
@@ -145,6 +146,12 @@ export const tests = {
       await SHEET.compute(page);
       await shot(page, 'offline-reloaded');
       await assertNoCspViolation(page, 'offline');
+      // Autosave works offline: the edit is stored, and a reload with the
+      // network still off brings it back as typed.
+      await saved(page);
+      await reload(page);
+      await page.locator(SHEET.ready).waitFor({ timeout: 20000 });
+      assertEq(await page.locator(SHEET.editField).inputValue(), '2,5 N/mm', 'kept offline across a reload');
 
       // Back online, the user is in the middle of an edit in the open tab...
       await context.setOffline(false);
@@ -185,6 +192,8 @@ export const tests = {
       await page.locator(SHEET.ready).waitFor({ timeout: 20000 });
       assertEq(await page.locator('meta[name=jw-test-build]').count(), 1, 'the new version is running');
       assertEq(await notice.count(), 0, 'no notice after the reload');
+      // "Your work is saved" held: the edit made before the update is there.
+      assertEq(await page.locator(SHEET.editField).inputValue(), '3 N/mm', 'the edit survived the update');
       const after = Object.keys(await cacheState(page));
       assert(after.length === 1 && after[0].endsWith('-next'), `only the new cache is left: ${after}`);
 
@@ -214,6 +223,10 @@ export const tests = {
       const url = pathToFileURL(SINGLE_FILE).href;
       await open(page, url);
       await SHEET.compute(page);
+      // Autosave where the browser allows storage for a file page; where it
+      // does not, the page says the work is kept in this tab only.
+      await saved(page);
+      console.log(`     single file, save state: ${(await page.locator('#save-state').textContent()).trim()}`);
       const notice = page.locator('#jw-notice');
       await notice.filter({ hasText: 'Opened from a file' }).waitFor();
       assert((await notice.textContent()).includes('Export'), 'the notice points to export');
