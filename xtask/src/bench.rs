@@ -113,24 +113,8 @@ impl Row {
 
 /// `cargo xtask bench [--only a,b] [--skip a,b] [--save-baseline]`.
 pub fn bench_cmd(args: &[String]) -> Result<(), String> {
-    let list = |flag: &str| -> Vec<String> {
-        crate::flag_value(args, flag)
-            .map(|v| v.split(',').map(str::to_string).collect())
-            .unwrap_or_default()
-    };
-    let only = list("--only");
-    let skip = list("--skip");
-    for n in only.iter().chain(skip.iter()) {
-        if !STEPS.contains(&n.as_str()) {
-            return Err(format!(
-                "unknown bench step `{n}`; steps are {}",
-                STEPS.join(", ")
-            ));
-        }
-    }
-    let wanted = |name: &str| {
-        (only.is_empty() || only.iter().any(|o| o == name)) && !skip.iter().any(|s| s == name)
-    };
+    let choice = crate::StepChoice::from_args(args, STEPS, "bench step")?;
+    let wanted = |name: &str| choice.wanted(name);
     let root = workspace_root();
     let load = std::fs::read_to_string("/proc/loadavg").unwrap_or_default();
     println!(

@@ -64,6 +64,43 @@ pub fn flag_value(args: &[String], name: &str) -> Option<String> {
         .and_then(|i| args.get(i + 1).cloned())
 }
 
+/// The steps chosen with `--only a,b` and `--skip a,b` among `steps`
+/// (`what` names them in the error, e.g. "step" or "bench step").
+pub struct StepChoice {
+    only: Vec<String>,
+    skip: Vec<String>,
+}
+
+impl StepChoice {
+    /// Read `--only` and `--skip`; an unknown name is an error listing `steps`.
+    pub fn from_args(args: &[String], steps: &[&str], what: &str) -> Result<Self, String> {
+        let list = |flag: &str| -> Vec<String> {
+            flag_value(args, flag)
+                .map(|v| v.split(',').map(str::to_string).collect())
+                .unwrap_or_default()
+        };
+        let choice = Self {
+            only: list("--only"),
+            skip: list("--skip"),
+        };
+        for n in choice.only.iter().chain(choice.skip.iter()) {
+            if !steps.contains(&n.as_str()) {
+                return Err(format!(
+                    "unknown {what} `{n}`; steps are {}",
+                    steps.join(", ")
+                ));
+            }
+        }
+        Ok(choice)
+    }
+
+    /// Whether step `name` runs.
+    pub fn wanted(&self, name: &str) -> bool {
+        (self.only.is_empty() || self.only.iter().any(|o| o == name))
+            && !self.skip.iter().any(|s| s == name)
+    }
+}
+
 fn public_url(args: &[String]) -> String {
     let mut p = flag_value(args, "--public-url").unwrap_or_else(|| "/".into());
     if !p.starts_with('/') {

@@ -182,24 +182,8 @@ fn hostile_corpus() -> Option<std::path::PathBuf> {
 
 /// `cargo xtask test`.
 pub fn test_cmd(args: &[String]) -> Result<(), String> {
-    let list = |flag: &str| -> Vec<String> {
-        crate::flag_value(args, flag)
-            .map(|v| v.split(',').map(str::to_string).collect())
-            .unwrap_or_default()
-    };
-    let only = list("--only");
-    let skip = list("--skip");
-    for n in only.iter().chain(skip.iter()) {
-        if !STEPS.contains(&n.as_str()) {
-            return Err(format!(
-                "unknown step `{n}`; steps are {}",
-                STEPS.join(", ")
-            ));
-        }
-    }
-    let wanted = |name: &str| {
-        (only.is_empty() || only.iter().any(|o| o == name)) && !skip.iter().any(|s| s == name)
-    };
+    let choice = crate::StepChoice::from_args(args, STEPS, "step")?;
+    let wanted = |name: &str| choice.wanted(name);
     let needs_browser = ["wasm", "dist", "e2e"].iter().any(|s| wanted(s));
     if needs_browser {
         tools::ensure_test_tools()?;
