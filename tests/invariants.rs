@@ -26,17 +26,14 @@ const FORBIDDEN: &[&str] = &[
     "reqwest",
 ];
 
-#[test]
-fn core_library_has_no_web_clock_or_io_dependency() {
-    let root = joulewise_tests::workspace_root();
+/// `cargo metadata` of the workspace (offline), with `extra` arguments.
+// A test helper: a failure here is a failed test, said loudly.
+#[allow(clippy::expect_used, clippy::unwrap_used)]
+fn cargo_metadata(root: &std::path::Path, extra: &[&str]) -> serde_json::Value {
     let out = Command::new(env!("CARGO"))
-        .args([
-            "metadata",
-            "--format-version",
-            "1",
-            "--offline",
-            "--manifest-path",
-        ])
+        .args(["metadata", "--format-version", "1", "--offline"])
+        .args(extra)
+        .arg("--manifest-path")
         .arg(root.join("Cargo.toml"))
         .output()
         .expect("cargo metadata runs");
@@ -45,7 +42,13 @@ fn core_library_has_no_web_clock_or_io_dependency() {
         "{}",
         String::from_utf8_lossy(&out.stderr)
     );
-    let meta: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    serde_json::from_slice(&out.stdout).unwrap()
+}
+
+#[test]
+fn core_library_has_no_web_clock_or_io_dependency() {
+    let root = joulewise_tests::workspace_root();
+    let meta = cargo_metadata(&root, &[]);
     let packages = meta["packages"].as_array().unwrap();
     let core = packages
         .iter()
@@ -183,24 +186,7 @@ fn unsafe_code_is_forbidden_in_every_crate() {
         manifest.contains("[workspace.lints.rust]\nunsafe_code = \"forbid\""),
         "the workspace must forbid unsafe code"
     );
-    let out = Command::new(env!("CARGO"))
-        .args([
-            "metadata",
-            "--format-version",
-            "1",
-            "--no-deps",
-            "--offline",
-            "--manifest-path",
-        ])
-        .arg(root.join("Cargo.toml"))
-        .output()
-        .expect("cargo metadata runs");
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let meta: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let meta = cargo_metadata(&root, &["--no-deps"]);
     let mut missing = Vec::new();
     for pkg in meta["packages"].as_array().unwrap() {
         let name = pkg["name"].as_str().unwrap_or("");
